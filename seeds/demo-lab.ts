@@ -1,0 +1,41 @@
+import type { Knex } from 'knex';
+import { hashPassword } from '../server/auth/passwords';
+import { createPerson } from '../server/services/people';
+
+/**
+ * The demo lab: an invented low-dimensional materials group. Every name here is made up.
+ * The three sign-in accounts are listed in README.md.
+ */
+export const DEMO_PASSWORD = 'flakeline-demo';
+
+export const DEMO_PEOPLE = [
+  { email: 'manager@demo.flakeline.test', displayName: 'Maren Ostrova', role: 'manager', status: 'active' },
+  { email: 'researcher@demo.flakeline.test', displayName: 'Teo Valcourt', role: 'researcher', status: 'active' },
+  { email: 'reviewer@demo.flakeline.test', displayName: 'Priya Castellane', role: 'reviewer', status: 'active' },
+  { email: 'ilkka.brandvold@demo.flakeline.test', displayName: 'Ilkka Brandvold', role: 'researcher', status: 'deactivated' },
+] as const;
+
+export async function seedDemoLab(knex: Knex): Promise<void> {
+  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  await knex.transaction(async (trx) => {
+    let manager: number | null = null;
+    for (const person of DEMO_PEOPLE) {
+      const created = await createPerson({ trx, ...person, passwordHash, invitedById: manager });
+      manager ??= created.id;
+    }
+    // Someone invited who has not chosen a password yet, so the People screen shows that state.
+    await createPerson({
+      trx,
+      email: 'noor.halvorsen@demo.flakeline.test',
+      displayName: 'Noor Halvorsen',
+      role: 'researcher',
+      invitedById: manager,
+    });
+  });
+}
+
+/** True when the database has no people yet, i.e. this is the first start. */
+export async function isEmptyLab(knex: Knex): Promise<boolean> {
+  const row = await knex('users').count<{ count: string }[]>({ count: '*' }).first();
+  return Number(row?.count ?? 0) === 0;
+}

@@ -1,0 +1,29 @@
+import knexFactory, { type Knex } from 'knex';
+import { knexSnakeCaseMappers, Model } from 'objection';
+import path from 'node:path';
+import pg from 'pg';
+import { REPO_ROOT } from '../config';
+
+// bigint (int8) ids arrive as strings by default; a lab's row counts stay far below 2^53.
+pg.types.setTypeParser(pg.types.builtins.INT8, (value) => Number(value));
+
+export const MIGRATIONS_DIR = path.join(REPO_ROOT, 'migrations');
+
+/** One knex instance per process; Objection models use it through `Model.knex`. */
+export function createKnex(databaseUrl: string, poolMax = 10): Knex {
+  const knex = knexFactory({
+    client: 'pg',
+    connection: databaseUrl,
+    pool: { min: 0, max: poolMax },
+    acquireConnectionTimeout: 10_000,
+    migrations: { directory: MIGRATIONS_DIR, loadExtensions: ['.ts'] },
+    ...knexSnakeCaseMappers(),
+  });
+  Model.knex(knex);
+  return knex;
+}
+
+export async function migrateToLatest(knex: Knex): Promise<string[]> {
+  const [, applied] = (await knex.migrate.latest()) as [number, string[]];
+  return applied;
+}

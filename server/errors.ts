@@ -1,0 +1,45 @@
+import type { ErrorCode } from '../shared/schemas/errors';
+
+export type FieldErrors = Record<string, string[]>;
+
+/** An error the API reports to the client as `{"error":{"code","message","fields"?}}`. */
+export class AppError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: ErrorCode,
+    message: string,
+    readonly fields?: FieldErrors,
+  ) {
+    super(message);
+    this.name = 'AppError';
+  }
+}
+
+export const malformedJson = (message = 'The request body is not valid JSON.') =>
+  new AppError(400, 'malformed_json', message);
+export const unauthenticated = (message = 'Sign in to continue.') =>
+  new AppError(401, 'unauthenticated', message);
+export const invalidCredentials = () =>
+  new AppError(401, 'invalid_credentials', 'That e-mail and password do not match an account.');
+export const accountDeactivated = () =>
+  new AppError(403, 'account_deactivated', 'This account has been deactivated. Ask your lab manager.');
+export const forbidden = (message = 'Your role does not allow this.') => new AppError(403, 'forbidden', message);
+export const csrfInvalid = () =>
+  new AppError(403, 'csrf_invalid', 'The form expired or came from elsewhere. Reload and try again.');
+export const notFound = (message: string) => new AppError(404, 'not_found', message);
+export const conflict = (code: 'conflict' | 'email_taken' | 'last_manager', message: string) =>
+  new AppError(409, code, message);
+export const linkInvalid = () =>
+  new AppError(404, 'link_invalid', 'This link is not valid. Check that it was copied whole.');
+export const linkExpired = () =>
+  new AppError(410, 'link_expired', 'This link has expired. Ask for a new one.');
+export const linkUsed = () => new AppError(410, 'link_used', 'This link has already been used. Ask for a new one.');
+export const payloadTooLarge = (message = 'The request is too large.') =>
+  new AppError(413, 'payload_too_large', message);
+export const invalid = (fields: FieldErrors, message = 'Some fields need attention.') =>
+  new AppError(422, 'validation_failed', message, fields);
+export const tooManyAttempts = (message: string) => new AppError(429, 'too_many_attempts', message);
+export const databaseUnavailable = () =>
+  new AppError(503, 'database_unavailable', 'The database is not answering. Try again in a moment.');
+export const mailUnavailable = () =>
+  new AppError(503, 'mail_unavailable', 'The mail server did not accept the message. Nothing was saved; try again.');

@@ -1,0 +1,56 @@
+import type { Knex } from 'knex';
+import type { Role } from '../../shared/roles';
+import type { UserStatus } from '../../shared/schemas/user';
+import { hashPassword } from '../auth/passwords';
+import { conflict, notFound } from '../errors';
+import { UserModel } from '../models/user-model';
+
+/** Creates an account directly (demo data, tests, first manager). Invitations go through `invite`. */
+export async function createPerson(props: {
+  trx?: Knex.Transaction;
+  email: string;
+  displayName: string;
+  role: Role;
+  password?: string;
+  passwordHash?: string;
+  status?: UserStatus;
+  invitedById?: number | null;
+}): Promise<UserModel> {
+  const passwordHash = props.passwordHash ?? (props.password ? await hashPassword(props.password) : null);
+  return UserModel.query(props.trx).insertAndFetch({
+    email: props.email.toLowerCase(),
+    displayName: props.displayName,
+    role: props.role,
+    status: props.status ?? (passwordHash ? 'active' : 'invited'),
+    passwordHash,
+    invitedById: props.invitedById ?? null,
+  });
+}
+
+/**
+ * A manager changes someone's role or status. The lab must keep at least one active manager,
+ * checked with the managers' rows locked so two managers demoting each other cannot both win.
+ */
+export async function updatePerson(props: {
+  trx: Knex.Transaction;
+  id: number;
+  role?: Role;
+  status?: 'active' | 'deactivated';
+}): Promise<UserModel> {
+  const person = await UserModel.query(props.trx).findById(props.id).forUpdate();
+  if (!person) throw notFound(`There is no person with id ${props.id}.`);
+  if (props.status === 'active' && !person.passwordHash) {
+    throw conflict('conflict', `${person.displayName} has not accepted the invitation yet; resend it instead.`);
+  }
+  const staysManager = (props.role ?? person.role) === 'manager' && (props.status ?? person.status) === 'active';
+  if (person.role === 'manager' && person.status === 'active' && !staysManager) {
+    const managers = await UserModel.query(props.trx).modify('activeManagers').forUpdate();
+    if (managers.length <= 1) {
+      throw conflict('last_manager', 'The lab needs at least one active lab manager. Make someone else a manager first.');
+    }
+  }
+  const patch: Partial<Pick<UserModel, 'role' | 'status'>> = {};
+  if (props.role) patch.role = props.role;
+  if (props.status) patch.status = props.status;
+  return person.$query(props.trx).patchAndFetch(patch);
+}

@@ -1,0 +1,36 @@
+import { z } from 'zod';
+
+/** Stable error codes: clients branch on these, people read the message. */
+export const ERROR_CODES = [
+  'malformed_json',
+  'payload_too_large',
+  'unauthenticated',
+  'invalid_credentials',
+  'account_deactivated',
+  'csrf_invalid',
+  'forbidden',
+  'not_found',
+  'conflict',
+  'email_taken',
+  'last_manager',
+  'link_invalid',
+  'link_expired',
+  'link_used',
+  'validation_failed',
+  'too_many_attempts',
+  'database_unavailable',
+  'mail_unavailable',
+  'internal',
+] as const;
+export type ErrorCode = (typeof ERROR_CODES)[number];
+
+export const ApiErrorBody = z
+  .object({
+    error: z.object({
+      code: z.enum(ERROR_CODES),
+      message: z.string(),
+      fields: z.record(z.string(), z.array(z.string())).optional(),
+    }),
+  })
+  .meta({ id: 'ApiError' });
+export type ApiErrorBody = z.infer<typeof ApiErrorBody>;
