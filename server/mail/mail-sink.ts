@@ -52,7 +52,11 @@ export async function startMailSink(options: { host: string; port: number; dir: 
     server.once('error', reject);
     server.listen(options.port, options.host, () => resolve());
   });
-  return { close: () => new Promise<void>((resolve) => server.close(() => resolve())) };
+  const address = server.server.address();
+  return {
+    port: typeof address === 'object' && address ? address.port : options.port,
+    close: () => new Promise<void>((resolve) => server.close(() => resolve())),
+  };
 }
 
 /** The newest captured messages first. */

@@ -57,7 +57,10 @@ export function buildOpenApiDocument(specs: readonly AnyRouteSpec[], serverUrl: 
     unrepresentable: 'any',
     uri: (id) => `#/components/schemas/${id}`,
   }) as { schemas: Record<string, JsonSchema> };
-  for (const schema of Object.values(schemas)) delete schema.$schema;
+  for (const schema of Object.values(schemas)) {
+    delete schema.$schema;
+    delete schema.$id;
+  }
 
   const paths: Record<string, Record<string, unknown>> = {};
   for (const spec of specs) {

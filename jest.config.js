@@ -1,0 +1,36 @@
+// Three suites, run in one process one file at a time (they share the test databases):
+// unit (shared code), api (supertest against PostgreSQL), e2e (the web build in Chromium).
+const tsJest = [
+  'ts-jest',
+  {
+    tsconfig: {
+      module: 'commonjs',
+      moduleResolution: 'node10',
+      target: 'es2022',
+      jsx: 'react-jsx',
+      esModuleInterop: true,
+      strict: true,
+      skipLibCheck: true,
+      customConditions: null,
+    },
+    isolatedModules: true,
+    diagnostics: false,
+  },
+];
+
+const project = (name, extra = {}) => ({
+  displayName: name,
+  testEnvironment: 'node',
+  testMatch: [`<rootDir>/tests/${name}/**/*.test.ts`],
+  transform: { '^.+\\.tsx?$': tsJest },
+  moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
+  ...extra,
+});
+
+module.exports = {
+  projects: [
+    project('unit'),
+    project('api', { testTimeout: 30_000 }),
+    project('e2e', { testTimeout: 90_000 }),
+  ],
+};

@@ -1,0 +1,110 @@
+import { execFileSync, spawn, spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { configFromEnv, DATA_DIR, REPO_ROOT } from '../config';
+import { createKnex, migrateToLatest } from '../db/knex';
+import { startMailSink } from '../mail/mail-sink';
+import { startServer } from '../main';
+import { seedDemoLab } from '../../seeds/demo-lab';
+import { APP_ROLE, databaseUrl, ensureClusterRunning, ensureDatabase } from './local-postgres';
+import { loadLocalSecrets } from './local-secrets';
+import { progress } from './progress';
+import { buildWebAppIfChanged } from './web-build';
+
+const API_DATABASE = 'flakeline_test';
+const E2E_DATABASE = 'flakeline_e2e';
+const CHROMIUM = '/usr/bin/chromium';
+const RESULTS_FILE = path.join(DATA_DIR, 'jest-results.json');
+
+function ensureChromium() {
+  if (existsSync(CHROMIUM)) return;
+  if (process.getuid?.() !== 0) throw new Error('Chromium is needed for the end-to-end suite: sudo apt-get install -y chromium');
+  progress("Installing Chromium from Debian's packages (end-to-end suite)");
+  execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
+  execFileSync('apt-get', ['install', '-y', '-qq', 'chromium'], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+}
+
+async function freshDatabase(name: string, secrets: ReturnType<typeof loadLocalSecrets>): Promise<string> {
+  await ensureDatabase({ ...secrets, database: name, fresh: true });
+  const url = databaseUrl(name, APP_ROLE, secrets.appPassword);
+  const knex = createKnex(url, 2);
+  await migrateToLatest(knex);
+  if (name === E2E_DATABASE) await seedDemoLab(knex);
+  await knex.destroy();
+  return url;
+}
+
+function typecheck(): boolean {
+  progress('Type-checking (tsc --noEmit)');
+  const result = spawnSync(path.join(REPO_ROOT, 'node_modules', '.bin', 'tsc'), ['--noEmit', '-p', '.'], { cwd: REPO_ROOT, stdio: 'inherit' });
+  return result.status === 0;
+}
+
+/**
+ * `npm test`: the same set-up as `npm start`, fresh test databases, the web build, a real
+ * server with demo data for the browser suite, then every suite. Extra arguments go to jest.
+ */
+async function main() {
+  const secrets = loadLocalSecrets();
+  ensureClusterRunning(secrets.superuserPassword);
+  const [apiUrl, e2eUrl] = await Promise.all([freshDatabase(API_DATABASE, secrets), freshDatabase(E2E_DATABASE, secrets)]);
+  buildWebAppIfChanged();
+  ensureChromium();
+  const typesOk = typecheck();
+
+  const mailDir = mkdtempSync(path.join(os.tmpdir(), 'flakeline-e2e-mail-'));
+  const sink = await startMailSink({ host: '127.0.0.1', port: 0, dir: mailDir });
+  const server = await startServer(
+    configFromEnv({
+      DATABASE_URL: e2eUrl,
+      SESSION_SECRET: secrets.sessionSecret,
+      PORT: '0',
+      SMTP_PORT: String(sink.port),
+      MAIL_SINK_DIR: mailDir,
+    }),
+  );
+
+  progress('Running the unit, API and end-to-end suites');
+  rmSync(RESULTS_FILE, { force: true });
+  // Jest runs as a child so this process keeps serving the browser suite meanwhile.
+  const exitCode = await new Promise<number>((resolve) => {
+    const jest = spawn(
+      path.join(REPO_ROOT, 'node_modules', '.bin', 'jest'),
+      ['--runInBand', '--json', `--outputFile=${RESULTS_FILE}`, ...process.argv.slice(2)],
+      {
+        cwd: REPO_ROOT,
+        stdio: 'inherit',
+        env: {
+          ...process.env,
+          TEST_DATABASE_URL: apiUrl,
+          E2E_BASE_URL: `http://127.0.0.1:${server.port}`,
+          E2E_SCREENSHOT_DIR: path.join(DATA_DIR, 'screenshots'),
+          CHROMIUM_PATH: CHROMIUM,
+        },
+      },
+    );
+    jest.on('exit', (code) => resolve(code ?? 1));
+  });
+  await server.close();
+  await sink.close();
+  rmSync(mailDir, { recursive: true, force: true });
+
+  let passed = 0;
+  let failed = 0;
+  if (existsSync(RESULTS_FILE)) {
+    const results = JSON.parse(readFileSync(RESULTS_FILE, 'utf8')) as { numPassedTests: number; numFailedTests: number };
+    passed = results.numPassedTests;
+    failed = results.numFailedTests;
+  }
+  // The type check counts as one more check, so a type error fails the run visibly.
+  if (typesOk) passed += 1;
+  else failed += 1;
+  process.stdout.write(`\nTests: ${passed} passed, ${failed} failed\n`);
+  process.exit(exitCode === 0 && typesOk && passed > 0 ? 0 : 1);
+}
+
+main().catch((error: unknown) => {
+  process.stderr.write(`flakeline: tests could not run: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`);
+  process.exit(1);
+});

@@ -1,0 +1,74 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import type { Knex } from 'knex';
+import { createApp } from '../../server/app';
+import { configFromEnv, type ServerConfig } from '../../server/config';
+import { createKnex } from '../../server/db/knex';
+import { createMailer } from '../../server/mail/mailer';
+import { readCapturedMail, startMailSink } from '../../server/mail/mail-sink';
+
+/** The API test database, made fresh by `npm test` (see server/cli/test.ts). */
+export function testDatabaseUrl(): string {
+  const url = process.env.TEST_DATABASE_URL;
+  if (!url) throw new Error('TEST_DATABASE_URL is not set: run the suites through `npm test`.');
+  return url;
+}
+
+export function testConfig(overrides: Partial<ServerConfig> = {}): ServerConfig {
+  return {
+    ...configFromEnv({
+      DATABASE_URL: testDatabaseUrl(),
+      SESSION_SECRET: 'test-session-secret',
+      PUBLIC_BASE_URL: 'http://flakeline.test',
+      WEB_DIST_DIR: path.join(os.tmpdir(), 'flakeline-no-web-build'),
+    }),
+    ...overrides,
+  };
+}
+
+export interface TestApp {
+  app: ReturnType<typeof createApp>['app'];
+  specs: ReturnType<typeof createApp>['specs'];
+  knex: Knex;
+  config: ServerConfig;
+  /** Messages the local mail sink has caught so far, newest first. */
+  mail: () => ReturnType<typeof readCapturedMail>;
+  close: () => Promise<void>;
+}
+
+/**
+ * The real app on the real test database, with a real SMTP sink on a free port. Passing the
+ * same `knex` to a second app simulates a server restart against the same database.
+ */
+export async function startTestApp(options: { config?: Partial<ServerConfig>; knex?: Knex } = {}): Promise<TestApp> {
+  const mailDir = mkdtempSync(path.join(os.tmpdir(), 'flakeline-mail-'));
+  const sink = await startMailSink({ host: '127.0.0.1', port: 0, dir: mailDir });
+  const config = testConfig({
+    mailSinkDir: mailDir,
+    smtp: { host: '127.0.0.1', port: sink.port, from: 'Flakeline <flakeline@flakeline.test>' },
+    ...options.config,
+  });
+  const knex = options.knex ?? createKnex(config.databaseUrl, 4);
+  const mailer = createMailer(config.smtp);
+  const { app, specs, close } = createApp({ config, knex, mailer });
+  return {
+    app,
+    specs,
+    knex,
+    config,
+    mail: () => readCapturedMail(mailDir),
+    close: async () => {
+      await close();
+      mailer.close();
+      await sink.close();
+      if (!options.knex) await knex.destroy();
+      rmSync(mailDir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Empties every table the app writes, between tests. */
+export async function resetDatabase(knex: Knex): Promise<void> {
+  await knex.raw('truncate table link_tokens, session, users restart identity cascade');
+}
