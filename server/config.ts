@@ -37,7 +37,7 @@ function numberFrom(value: string | undefined, fallback: number): number {
 }
 
 /** Reads the server's settings from the environment, with the defaults a lab machine needs. */
-export function configFromEnv(env: NodeJS.ProcessEnv = process.env): ServerConfig {
+export function configFromEnv(env: Record<string, string | undefined> = process.env): ServerConfig {
   const port = numberFrom(env.PORT, 8080);
   const host = env.HOST ?? '127.0.0.1';
   if (!env.DATABASE_URL) throw new Error('DATABASE_URL is not set.');

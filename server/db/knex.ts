@@ -3,6 +3,7 @@ import { knexSnakeCaseMappers, Model } from 'objection';
 import path from 'node:path';
 import pg from 'pg';
 import { REPO_ROOT } from '../config';
+import { logLine } from '../log';
 
 // bigint (int8) ids arrive as strings by default; a lab's row counts stay far below 2^53.
 pg.types.setTypeParser(pg.types.builtins.INT8, (value) => Number(value));
@@ -18,6 +19,12 @@ export function createKnex(databaseUrl: string, poolMax = 10): Knex {
     acquireConnectionTimeout: 10_000,
     migrations: { directory: MIGRATIONS_DIR, loadExtensions: ['.ts'] },
     ...knexSnakeCaseMappers(),
+    log: {
+      warn: (message: string) => logLine(`knex: ${message}`),
+      error: (message: string) => logLine(`knex: ${message}`),
+      deprecate: (message: string) => logLine(`knex: ${message}`),
+      debug: () => undefined,
+    },
   });
   Model.knex(knex);
   return knex;

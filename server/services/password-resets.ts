@@ -42,10 +42,3 @@ export async function resetPassword(props: { trx: Knex.Transaction; token: strin
   await spendLinkToken(props.trx, link);
   return person.$query(props.trx).patchAndFetch({ passwordHash: await hashPassword(props.password) });
 }
-
-/** Signs the person out everywhere else after a password change or reset. */
-export async function endOtherSessions(knex: Knex, userId: number, keepSessionId?: string): Promise<void> {
-  const query = knex('session').whereRaw("(sess -> 'passport' ->> 'user') = ?", [String(userId)]);
-  if (keepSessionId) query.whereNot('sid', keepSessionId);
-  await query.delete();
-}

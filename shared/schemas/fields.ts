@@ -37,6 +37,10 @@ export const LinkTokenField = z
   .string({ error: 'The link is incomplete.' })
   .regex(new RegExp(`^[A-Za-z0-9_-]{${LINK_TOKEN_LENGTH}}$`), 'The link is incomplete or damaged.');
 
+/** A record id in a path: plain decimal digits only (no `1e3`, `0x10` or leading zeros). */
 export const IdParam = z.object({
-  id: z.coerce.number({ error: 'Expected a numeric id.' }).int().positive('Expected a numeric id.'),
+  id: z
+    .string()
+    .regex(/^[1-9][0-9]{0,14}$/, 'Expected a numeric id.')
+    .transform((digits) => Number(digits)),
 });

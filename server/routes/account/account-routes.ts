@@ -4,7 +4,8 @@ import { checkCredentials } from '../../auth/passport';
 import { hashPassword } from '../../auth/passwords';
 import { route, type AnyRouteSpec } from '../../http/route';
 import { presentUser } from '../../presenters/user-presenter';
-import { endOtherSessions } from '../../services/password-resets';
+import { endSessionsOf } from '../../services/people';
+import { passwordCheckLimiter } from '../auth/sign-in-limits';
 
 const TAG = 'Account';
 
@@ -28,13 +29,14 @@ export function accountRoutes(context: AppContext): AnyRouteSpec[] {
       tag: TAG,
       summary: 'Change your password; other sessions of yours are signed out',
       access: 'signed-in',
+      before: [passwordCheckLimiter(context.config.signInLimits)],
       body: ChangePasswordInput,
       response: Accepted,
-      errors: [401],
+      errors: [401, 429],
       handler: async ({ user, body, req }) => {
         await checkCredentials(user.email, body.currentPassword);
         await user.$query().patch({ passwordHash: await hashPassword(body.newPassword) });
-        await endOtherSessions(context.knex, user.id, req.sessionID);
+        await endSessionsOf(context.knex, user.id, req.sessionID);
         return { message: 'Password changed. Your other sessions have been signed out.' };
       },
     }),

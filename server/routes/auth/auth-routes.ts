@@ -13,11 +13,14 @@ import {
 } from '../../../shared/schemas/auth';
 import type { AppContext } from '../../app-context';
 import { SESSION_COOKIE } from '../../auth/session';
+import { AppError } from '../../errors';
+import { logError } from '../../log';
 import { route, type AnyRouteSpec } from '../../http/route';
 import { UserModel } from '../../models/user-model';
 import { presentUser } from '../../presenters/user-presenter';
 import { acceptInvitation, previewInvitation } from '../../services/invitations';
-import { endOtherSessions, requestPasswordReset, resetPassword } from '../../services/password-resets';
+import { requestPasswordReset, resetPassword } from '../../services/password-resets';
+import { endSessionsOf } from '../../services/people';
 import { resetRequestLimiter, signInLimiters } from './sign-in-limits';
 
 const TAG = 'Sign-in';
@@ -94,23 +97,29 @@ export function authRoutes(context: AppContext): AnyRouteSpec[] {
       method: 'post',
       path: '/auth/password-reset-requests',
       tag: TAG,
-      summary: 'E-mail a password reset link (answers the same whether or not the address has an account)',
+      summary: 'E-mail a password reset link (answers the same whether or not the address has an account, or the mail went out)',
       access: 'public',
       before: [resetRequestLimiter(context.config.signInLimits)],
       body: ForgotPasswordInput,
       response: Accepted,
       successStatus: 202,
-      errors: [429, 503],
+      errors: [429],
       handler: async ({ body }) => {
-        await context.knex.transaction((trx) =>
-          requestPasswordReset({
-            trx,
-            email: body.email,
-            mailer: context.mailer,
-            publicBaseUrl: context.config.publicBaseUrl,
-            ttlMinutes: context.config.passwordResetTtlMinutes,
-          }),
-        );
+        try {
+          await context.knex.transaction((trx) =>
+            requestPasswordReset({
+              trx,
+              email: body.email,
+              mailer: context.mailer,
+              publicBaseUrl: context.config.publicBaseUrl,
+              ttlMinutes: context.config.passwordResetTtlMinutes,
+            }),
+          );
+        } catch (error) {
+          // Answering 503 only for real accounts would tell a stranger which addresses exist.
+          if (!(error instanceof AppError && error.code === 'mail_unavailable')) throw error;
+          logError('A password reset e-mail could not be sent', error);
+        }
         return { message: 'If that address has an active account, a reset link is on its way.' };
       },
     }),
@@ -125,7 +134,7 @@ export function authRoutes(context: AppContext): AnyRouteSpec[] {
       errors: [404, 410],
       handler: async ({ body }) => {
         const person = await context.knex.transaction((trx) => resetPassword({ trx, ...body }));
-        await endOtherSessions(context.knex, person.id);
+        await endSessionsOf(context.knex, person.id);
         return { message: 'Your password has been changed. Sign in with the new one.' };
       },
     }),

@@ -48,3 +48,13 @@ export function resetRequestLimiter(limits: SignInLimits): RequestHandler {
     handler: (_req, _res, next) => next(tooManyAttempts('Too many reset requests from this device. Wait a while and try again.')),
   });
 }
+
+/** Wrong current passwords on the change-password form count per person, like failed sign-ins. */
+export function passwordCheckLimiter(limits: SignInLimits): RequestHandler {
+  return limiter(
+    limits.windowMs,
+    limits.perAccount,
+    (req) => `person:${String((req.user as { id?: number } | undefined)?.id ?? clientAddress(req))}`,
+    'Too many wrong current passwords. Wait a while, or sign out and reset your password.',
+  );
+}
