@@ -1,6 +1,7 @@
 import express from 'express';
 import helmet from 'helmet';
 import type { Knex } from 'knex';
+import { Model } from 'objection';
 import { JSON_BODY_LIMIT_BYTES } from '../shared/schemas/limits';
 import type { AppContext } from './app-context';
 import { createCsrf } from './auth/csrf';
@@ -35,6 +36,8 @@ export function apiRouteSpecs(context: AppContext): AnyRouteSpec[] {
 
 export function createApp(deps: { config: ServerConfig; knex: Knex; mailer: Mailer }) {
   const { config } = deps;
+  // Models without an explicit transaction use the server's knex.
+  Model.knex(deps.knex);
   const context: AppContext = { ...deps, passport: createPassport(), csrf: createCsrf() };
   const session = createSessionMiddleware(config);
   const specs = apiRouteSpecs(context);

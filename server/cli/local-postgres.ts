@@ -4,6 +4,7 @@ import os from 'node:os';
 import path from 'node:path';
 import pg from 'pg';
 import { DATA_DIR } from '../config';
+import type { LocalSecrets } from './local-secrets';
 import { progress } from './progress';
 
 /** The project's own PostgreSQL cluster: loopback only, its own port, data under .data/ (ignored by git). */
@@ -12,6 +13,7 @@ export const PG_HOST = '127.0.0.1';
 const CLUSTER_DIR = path.join(DATA_DIR, 'postgres');
 const LOG_FILE = path.join(DATA_DIR, 'postgres.log');
 export const APP_ROLE = 'flakeline';
+export const OWNER_ROLE = 'flakeline_owner';
 
 const isRoot = () => process.getuid?.() === 0;
 
@@ -121,32 +123,45 @@ export function databaseUrl(database: string, role: string, password: string): s
   return `postgres://${encodeURIComponent(role)}:${encodeURIComponent(password)}@${PG_HOST}:${PG_PORT}/${database}`;
 }
 
+export interface DatabaseUrls {
+  /** The server's connection: rows only. */
+  app: string;
+  /** The owner's connection: migrations and grants. */
+  owner: string;
+  /** The cluster superuser on this database: test resets and tamper tests only. */
+  admin: string;
+}
+
+async function ensureRole(admin: pg.Client, role: string, password: string) {
+  const found = await admin.query('select 1 from pg_roles where rolname = $1', [role]);
+  const verb = found.rowCount === 0 ? 'create' : 'alter';
+  await admin.query(`${verb} role ${role} login password ${admin.escapeLiteral(password)} nosuperuser nocreatedb nocreaterole`);
+}
+
 /**
- * Creates the application role and a database it owns. With `fresh`, an existing database of
- * that name is dropped first (test runs start clean).
+ * Creates the owner and application roles and a database the owner owns. With `fresh`, an
+ * existing database of that name is dropped first (test runs start clean).
  */
-export async function ensureDatabase(props: {
-  superuserPassword: string;
-  appPassword: string;
-  database: string;
-  fresh?: boolean;
-}): Promise<void> {
+export async function ensureDatabase(props: LocalSecrets & { database: string; fresh?: boolean }): Promise<DatabaseUrls> {
   const admin = new pg.Client({ connectionString: databaseUrl('postgres', 'postgres', props.superuserPassword) });
   await admin.connect();
   try {
-    const role = await admin.query('select 1 from pg_roles where rolname = $1', [APP_ROLE]);
-    const quotedPassword = admin.escapeLiteral(props.appPassword);
-    if (role.rowCount === 0) {
-      await admin.query(`create role ${APP_ROLE} login password ${quotedPassword} nosuperuser nocreatedb nocreaterole`);
-    } else {
-      await admin.query(`alter role ${APP_ROLE} password ${quotedPassword}`);
-    }
-    if (props.fresh) await admin.query(`drop database if exists ${admin.escapeIdentifier(props.database)} with (force)`);
+    await ensureRole(admin, OWNER_ROLE, props.ownerPassword);
+    await ensureRole(admin, APP_ROLE, props.appPassword);
+    const name = admin.escapeIdentifier(props.database);
+    if (props.fresh) await admin.query(`drop database if exists ${name} with (force)`);
     const exists = await admin.query('select 1 from pg_database where datname = $1', [props.database]);
     if (exists.rowCount === 0) {
-      await admin.query(`create database ${admin.escapeIdentifier(props.database)} owner ${APP_ROLE} encoding 'UTF8'`);
+      await admin.query(`create database ${name} owner ${OWNER_ROLE} encoding 'UTF8'`);
+      await admin.query(`revoke all on database ${name} from public`);
+      await admin.query(`grant connect on database ${name} to ${APP_ROLE}`);
     }
   } finally {
     await admin.end();
   }
+  return {
+    app: databaseUrl(props.database, APP_ROLE, props.appPassword),
+    owner: databaseUrl(props.database, OWNER_ROLE, props.ownerPassword),
+    admin: databaseUrl(props.database, 'postgres', props.superuserPassword),
+  };
 }

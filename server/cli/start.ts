@@ -1,10 +1,11 @@
 import path from 'node:path';
 import { configFromEnv, DATA_DIR } from '../config';
-import { createKnex, migrateToLatest } from '../db/knex';
+import { createKnex } from '../db/knex';
+import { prepareDatabase } from '../db/prepare-database';
 import { startMailSink } from '../mail/mail-sink';
 import { startServer } from '../main';
 import { isEmptyLab, seedDemoLab } from '../../seeds/demo-lab';
-import { databaseUrl, ensureClusterRunning, ensureDatabase, APP_ROLE } from './local-postgres';
+import { ensureClusterRunning, ensureDatabase } from './local-postgres';
 import { loadLocalSecrets } from './local-secrets';
 import { progress } from './progress';
 import { buildWebAppIfChanged } from './web-build';
@@ -14,16 +15,20 @@ const SMTP_SINK_PORT = 2526;
 
 /**
  * `npm start`: the local cluster, the database, migrations, demo data on first run, the web
- * build when its sources changed, the local mail sink, then the server. With DATABASE_URL and
- * SMTP_HOST set, it uses those instead of the local cluster and the sink.
+ * build when its sources changed, the local mail sink, then the server. With DATABASE_URL (the
+ * app's role) and MIGRATION_DATABASE_URL (the owner's) or SMTP_HOST set, it uses those instead of
+ * the local cluster and the sink.
  */
+const roleOf = (url: string) => decodeURIComponent(new URL(url).username);
+
 async function main() {
   const secrets = loadLocalSecrets();
   const env = { ...process.env };
   if (!env.DATABASE_URL) {
     ensureClusterRunning(secrets.superuserPassword);
-    await ensureDatabase({ ...secrets, database: DATABASE });
-    env.DATABASE_URL = databaseUrl(DATABASE, APP_ROLE, secrets.appPassword);
+    const urls = await ensureDatabase({ ...secrets, database: DATABASE });
+    env.DATABASE_URL = urls.app;
+    env.MIGRATION_DATABASE_URL ??= urls.owner;
   }
   env.SESSION_SECRET ??= secrets.sessionSecret;
   const useSink = !env.SMTP_HOST;
@@ -33,9 +38,10 @@ async function main() {
   }
   const config = configFromEnv(env);
 
-  const knex = createKnex(config.databaseUrl, 2);
-  const applied = await migrateToLatest(knex);
+  const ownerUrl = env.MIGRATION_DATABASE_URL ?? config.databaseUrl;
+  const applied = await prepareDatabase({ ownerUrl, appRole: roleOf(config.databaseUrl) });
   if (applied.length) progress(`Applied ${applied.length} migration(s)`);
+  const knex = createKnex(config.databaseUrl, 2);
   if (await isEmptyLab(knex)) {
     progress('Loading the demo lab (first run)');
     await seedDemoLab(knex);

@@ -3,11 +3,12 @@ import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { configFromEnv, DATA_DIR, REPO_ROOT } from '../config';
-import { createKnex, migrateToLatest } from '../db/knex';
+import { createKnex } from '../db/knex';
+import { prepareDatabase } from '../db/prepare-database';
 import { startMailSink } from '../mail/mail-sink';
 import { startServer } from '../main';
 import { seedDemoLab } from '../../seeds/demo-lab';
-import { APP_ROLE, databaseUrl, ensureClusterRunning, ensureDatabase } from './local-postgres';
+import { APP_ROLE, ensureClusterRunning, ensureDatabase, type DatabaseUrls } from './local-postgres';
 import { loadLocalSecrets } from './local-secrets';
 import { progress } from './progress';
 import { buildWebAppIfChanged } from './web-build';
@@ -25,14 +26,15 @@ function ensureChromium() {
   execFileSync('apt-get', ['install', '-y', '-qq', 'chromium'], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
 }
 
-async function freshDatabase(name: string, secrets: ReturnType<typeof loadLocalSecrets>): Promise<string> {
-  await ensureDatabase({ ...secrets, database: name, fresh: true });
-  const url = databaseUrl(name, APP_ROLE, secrets.appPassword);
-  const knex = createKnex(url, 2);
-  await migrateToLatest(knex);
-  if (name === E2E_DATABASE) await seedDemoLab(knex);
-  await knex.destroy();
-  return url;
+async function freshDatabase(name: string, secrets: ReturnType<typeof loadLocalSecrets>): Promise<DatabaseUrls> {
+  const urls = await ensureDatabase({ ...secrets, database: name, fresh: true });
+  await prepareDatabase({ ownerUrl: urls.owner, appRole: APP_ROLE });
+  if (name === E2E_DATABASE) {
+    const knex = createKnex(urls.app, 2);
+    await seedDemoLab(knex);
+    await knex.destroy();
+  }
+  return urls;
 }
 
 function typecheck(): boolean {
@@ -48,7 +50,7 @@ function typecheck(): boolean {
 async function main() {
   const secrets = loadLocalSecrets();
   ensureClusterRunning(secrets.superuserPassword);
-  const [apiUrl, e2eUrl] = await Promise.all([freshDatabase(API_DATABASE, secrets), freshDatabase(E2E_DATABASE, secrets)]);
+  const [apiUrls, e2eUrls] = await Promise.all([freshDatabase(API_DATABASE, secrets), freshDatabase(E2E_DATABASE, secrets)]);
   buildWebAppIfChanged();
   ensureChromium();
   const typesOk = typecheck();
@@ -57,7 +59,7 @@ async function main() {
   const sink = await startMailSink({ host: '127.0.0.1', port: 0, dir: mailDir });
   const server = await startServer(
     configFromEnv({
-      DATABASE_URL: e2eUrl,
+      DATABASE_URL: e2eUrls.app,
       SESSION_SECRET: secrets.sessionSecret,
       PORT: '0',
       SMTP_PORT: String(sink.port),
@@ -77,7 +79,8 @@ async function main() {
         stdio: 'inherit',
         env: {
           ...process.env,
-          TEST_DATABASE_URL: apiUrl,
+          TEST_DATABASE_URL: apiUrls.app,
+          TEST_ADMIN_DATABASE_URL: apiUrls.admin,
           E2E_BASE_URL: `http://127.0.0.1:${server.port}`,
           E2E_SCREENSHOT_DIR: path.join(DATA_DIR, 'screenshots'),
           CHROMIUM_PATH: CHROMIUM,

@@ -1,5 +1,5 @@
 import knexFactory, { type Knex } from 'knex';
-import { knexSnakeCaseMappers, Model } from 'objection';
+import { knexSnakeCaseMappers } from 'objection';
 import path from 'node:path';
 import pg from 'pg';
 import { REPO_ROOT } from '../config';
@@ -10,7 +10,7 @@ pg.types.setTypeParser(pg.types.builtins.INT8, (value) => Number(value));
 
 export const MIGRATIONS_DIR = path.join(REPO_ROOT, 'migrations');
 
-/** One knex instance per process; Objection models use it through `Model.knex`. */
+/** A knex instance; `createApp` binds the Objection models to the one the server uses. */
 export function createKnex(databaseUrl: string, poolMax = 10): Knex {
   const knex = knexFactory({
     client: 'pg',
@@ -26,7 +26,6 @@ export function createKnex(databaseUrl: string, poolMax = 10): Knex {
       debug: () => undefined,
     },
   });
-  Model.knex(knex);
   return knex;
 }
 

@@ -9,7 +9,7 @@ beforeAll(async () => {
   lab = await startTestApp({ config: { signInLimits: { windowMs: 60_000, perAccount: 1_000, perAddress: 1_000 } } });
 });
 afterAll(() => lab.close());
-beforeEach(() => resetDatabase(lab.knex));
+beforeEach(() => resetDatabase());
 
 const CALLERS = ['anonymous', 'reviewer', 'researcher', 'manager'] as const;
 type Caller = (typeof CALLERS)[number];

@@ -10,7 +10,7 @@ beforeAll(async () => {
   lab = await startTestApp();
 });
 afterAll(() => lab.close());
-beforeEach(() => resetDatabase(lab.knex));
+beforeEach(() => resetDatabase());
 
 const NEW_PASSWORD = 'graphene on hBN, twice';
 let sequence = 0;

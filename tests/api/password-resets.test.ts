@@ -11,7 +11,7 @@ beforeAll(async () => {
   lab = await startTestApp({ config: { signInLimits: GENEROUS_LIMITS } });
 });
 afterAll(() => lab.close());
-beforeEach(() => resetDatabase(lab.knex));
+beforeEach(() => resetDatabase());
 
 const mailTo = async (email: string) => (await lab.mail()).filter((message) => message.to.includes(email));
 

@@ -7,7 +7,7 @@ beforeAll(async () => {
   lab = await startTestApp({ config: { signInLimits: { windowMs: 60_000, perAccount: 1_000, perAddress: 1_000 } } });
 });
 afterAll(() => lab.close());
-beforeEach(() => resetDatabase(lab.knex));
+beforeEach(() => resetDatabase());
 
 async function signedInManager() {
   const manager = await buildManager(lab.knex);

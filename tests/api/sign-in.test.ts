@@ -8,7 +8,7 @@ beforeAll(async () => {
   lab = await startTestApp({ config: { signInLimits: { windowMs: 60_000, perAccount: 3, perAddress: 100 } } });
 });
 afterAll(() => lab.close());
-beforeEach(() => resetDatabase(lab.knex));
+beforeEach(() => resetDatabase());
 
 describe('POST /api/auth/sign-in', () => {
   it('400 malformed_json for a body that is not JSON', async () => {

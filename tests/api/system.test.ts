@@ -10,7 +10,7 @@ beforeAll(async () => {
   lab = await startTestApp();
 });
 afterAll(() => lab.close());
-beforeEach(() => resetDatabase(lab.knex));
+beforeEach(() => resetDatabase());
 
 describe('GET /api/health', () => {
   it('200 when the server and its database answer', async () => {

@@ -68,7 +68,32 @@ export async function startTestApp(options: { config?: Partial<ServerConfig>; kn
   };
 }
 
+let adminKnex: Knex | undefined;
+
+/**
+ * The cluster superuser on the test database. Only tests use it: to empty tables between tests
+ * (the app's role may not truncate, and nobody may truncate the history without disabling its
+ * triggers) and to play a tamperer who edits the history behind the app's back.
+ */
+export function testAdminKnex(): Knex {
+  const url = process.env.TEST_ADMIN_DATABASE_URL;
+  if (!url) throw new Error('TEST_ADMIN_DATABASE_URL is not set: run the suites through `npm test`.');
+  adminKnex ??= createKnex(url, 1);
+  return adminKnex;
+}
+
+afterAll(async () => {
+  await adminKnex?.destroy();
+  adminKnex = undefined;
+});
+
+const APP_TABLES = ['history_events', 'lineage_links', 'step_samples', 'steps', 'samples', 'link_tokens', 'session', 'users'];
+
 /** Empties every table the app writes, between tests. */
-export async function resetDatabase(knex: Knex): Promise<void> {
-  await knex.raw('truncate table link_tokens, session, users restart identity cascade');
+export async function resetDatabase(): Promise<void> {
+  await testAdminKnex().transaction(async (trx) => {
+    await trx.raw('set local session_replication_role = replica');
+    await trx.raw(`truncate table ${APP_TABLES.join(', ')} restart identity cascade`);
+    await trx.raw('alter sequence history_events_id_seq restart');
+  });
 }
