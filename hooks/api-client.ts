@@ -22,8 +22,7 @@ export class ApiError extends Error {
   }
 }
 
-const NETWORK_MESSAGE =
-  'Cannot reach the Flakeline server. Check your connection to the lab network and try again.';
+const NETWORK_MESSAGE = 'Cannot reach the Flakeline server. Check your connection to the lab network and try again.';
 
 /** Used only when the server's own message is missing; its messages are written for people. */
 const FALLBACK_MESSAGES: Record<ApiErrorCode, string> = {
@@ -42,6 +41,10 @@ const FALLBACK_MESSAGES: Record<ApiErrorCode, string> = {
   link_expired: 'This link has expired.',
   link_used: 'This link has already been used.',
   validation_failed: 'Some fields need attention.',
+  code_typo: 'That code has a typing mistake in it: its check symbol does not match. Read it off the label again.',
+  lineage_cycle: 'That would make a sample its own ancestor.',
+  stale_version: 'Someone changed this record after you opened it. Look at their change, then try again.',
+  sample_unavailable: 'That sample cannot be used right now; it may be retired or used up.',
   too_many_attempts: 'Too many attempts. Wait a few minutes and try again.',
   database_unavailable: 'The Flakeline database is not available right now. Try again in a minute.',
   mail_unavailable: 'The mail server could not be reached, so no e-mail was sent.',
@@ -168,15 +171,9 @@ async function readBody<S extends z.ZodType>(response: Response, schema: S): Pro
  * (refreshed and retried once if the server rejects it), errors as `ApiError`, and the answer
  * checked against the shared zod schema when one is given.
  */
-export function apiFetch<S extends z.ZodType>(
-  path: string,
-  options: ApiRequest & { schema: S },
-): Promise<z.output<S>>;
+export function apiFetch<S extends z.ZodType>(path: string, options: ApiRequest & { schema: S }): Promise<z.output<S>>;
 export function apiFetch(path: string, options?: ApiRequest): Promise<void>;
-export async function apiFetch(
-  path: string,
-  options: ApiRequest & { schema?: z.ZodType } = {},
-): Promise<unknown> {
+export async function apiFetch(path: string, options: ApiRequest & { schema?: z.ZodType } = {}): Promise<unknown> {
   const { method = 'GET', body, signal, schema } = options;
   const mutating = method !== 'GET';
 

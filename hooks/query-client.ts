@@ -2,6 +2,10 @@ import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query';
 import { ApiError, forgetCsrfToken, isApiError } from './api-client';
 import { sessionKeys } from './query-keys';
 
+/**
+ * Two more tries ride out a server restart without leaving someone staring at a spinner
+ * (common practice, no source).
+ */
 const MAX_RETRIES = 2;
 
 /** A 4xx answer will not change by asking again; network trouble and 5xx might. */

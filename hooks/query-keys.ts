@@ -22,6 +22,7 @@ export const linkKeys = {
 /**
  * How long each kind of answer counts as fresh, in milliseconds. The session rarely changes
  * under us; the people list changes when a colleague acts; the outbox is for watching mail arrive.
+ * The numbers are judgement (common practice, no source).
  */
 export const STALE_TIMES = {
   session: 5 * 60_000,

@@ -7,7 +7,10 @@ import { useFonts } from 'expo-font';
 import { useEffect, useState } from 'react';
 import { fontFaces } from '@/components/theme';
 
-/** After this long the app shows itself with fallback fonts rather than keep someone waiting. */
+/**
+ * After this long the app shows itself with fallback fonts rather than keep someone waiting
+ * (common practice, no source).
+ */
 const FONT_PATIENCE_MS = 3000;
 
 /** Fonts ship inside the app bundle; nothing is fetched from the internet. */

@@ -1,4 +1,4 @@
-import { useLocalSearchParams } from 'expo-router';
+import { useGlobalSearchParams, useLocalSearchParams, usePathname } from 'expo-router';
 
 export const LAB_HOME = '/account';
 
@@ -18,4 +18,18 @@ export function safeNextPath(next: string | string[] | undefined): string {
 export function useNextPath(): string {
   const { next } = useLocalSearchParams<{ next?: string | string[] }>();
   return safeNextPath(next);
+}
+
+/** The path and query of the screen being shown, to come back to after signing in. */
+export function useCurrentPath(): string {
+  const pathname = usePathname();
+  const params = useGlobalSearchParams();
+  const query = new URLSearchParams();
+  for (const [name, value] of Object.entries(params)) {
+    for (const item of Array.isArray(value) ? value : [value]) {
+      if (item !== undefined) query.append(name, item);
+    }
+  }
+  const search = query.toString();
+  return search ? `${pathname}?${search}` : pathname;
 }

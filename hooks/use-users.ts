@@ -17,11 +17,15 @@ function byStatusThenName(a: User, b: User): number {
   );
 }
 
+function sortPeople(users: User[]): User[] {
+  return [...users].sort(byStatusThenName);
+}
+
 export function useUsersQuery(options: { enabled?: boolean } = {}) {
   return useQuery({
     queryKey: userKeys.list(),
     queryFn: async ({ signal }) => (await apiFetch('/api/users', { schema: UserList, signal })).users,
-    select: (users) => [...users].sort(byStatusThenName),
+    select: sortPeople,
     staleTime: STALE_TIMES.users,
     enabled: options.enabled ?? true,
   });
@@ -55,8 +59,7 @@ export function useUpdateUserMutation() {
 export function useResendInvitationMutation() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (id: number) =>
-      apiFetch(`/api/users/${id}/invitation`, { method: 'POST', schema: Accepted }),
+    mutationFn: (id: number) => apiFetch(`/api/users/${id}/invitation`, { method: 'POST', schema: Accepted }),
     onSuccess: () => {
       void queryClient.invalidateQueries({ queryKey: mailKeys.all });
     },

@@ -25,11 +25,7 @@ export async function up(knex: Knex): Promise<void> {
     table.bigInteger('created_by_id').references('users.id').onDelete('SET NULL');
     table.timestamps(true, true);
     table.check("kind in ('crystal', 'chip', 'flake', 'film', 'stack', 'device')", [], 'samples_kind_known');
-    table.check(
-      "status in ('ready', 'in_process', 'used_up', 'missing', 'discarded', 'retired')",
-      [],
-      'samples_status_known',
-    );
+    table.check("status in ('ready', 'in_process', 'used_up', 'missing', 'discarded', 'retired')", [], 'samples_status_known');
     table.check("(status = 'retired') = (retired_reason is not null)", [], 'samples_retired_with_reason');
     table.check('version >= 1', [], 'samples_version_positive');
     table.index(['kind', 'created_at']);
@@ -94,6 +90,8 @@ export async function up(knex: Knex): Promise<void> {
     table.text('subject_code');
     table.bigInteger('step_id').references('steps.id').onDelete('RESTRICT');
     table.jsonb('payload').notNullable();
+    // The exact JSON text that was hashed; the columns above are its queryable copy.
+    table.text('body').notNullable();
     table.text('prev_hash').notNullable();
     table.text('hash').notNullable().unique();
     table.index(['subject_code', 'id']);

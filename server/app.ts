@@ -17,6 +17,8 @@ import { buildOpenApiDocument } from './openapi/openapi-document';
 import { accountRoutes } from './routes/account/account-routes';
 import { authRoutes } from './routes/auth/auth-routes';
 import { mailSinkRoutes } from './routes/mail-sink/mail-sink-routes';
+import { sampleRoutes } from './routes/samples/sample-routes';
+import { stepRoutes } from './routes/steps/step-routes';
 import { systemRoutes } from './routes/system/system-routes';
 import { userRoutes } from './routes/users/user-routes';
 
@@ -27,6 +29,8 @@ export function apiRouteSpecs(context: AppContext): AnyRouteSpec[] {
     ...accountRoutes(context),
     ...userRoutes(context),
     ...mailSinkRoutes(context),
+    ...sampleRoutes(context),
+    ...stepRoutes(context),
   ];
   let document: unknown;
   const system = systemRoutes(context, () => (document ??= buildOpenApiDocument(all, context.config.publicBaseUrl)));

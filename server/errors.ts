@@ -15,10 +15,8 @@ export class AppError extends Error {
   }
 }
 
-export const malformedJson = (message = 'The request body is not valid JSON.') =>
-  new AppError(400, 'malformed_json', message);
-export const unauthenticated = (message = 'Sign in to continue.') =>
-  new AppError(401, 'unauthenticated', message);
+export const malformedJson = (message = 'The request body is not valid JSON.') => new AppError(400, 'malformed_json', message);
+export const unauthenticated = (message = 'Sign in to continue.') => new AppError(401, 'unauthenticated', message);
 export const invalidCredentials = () =>
   new AppError(401, 'invalid_credentials', 'That e-mail and password do not match an account.');
 export const accountDeactivated = () =>
@@ -27,17 +25,26 @@ export const forbidden = (message = 'Your role does not allow this.') => new App
 export const csrfInvalid = () =>
   new AppError(403, 'csrf_invalid', 'The form expired or came from elsewhere. Reload and try again.');
 export const notFound = (message: string) => new AppError(404, 'not_found', message);
-export const conflict = (code: 'conflict' | 'email_taken' | 'last_manager', message: string) =>
-  new AppError(409, code, message);
-export const linkInvalid = () =>
-  new AppError(404, 'link_invalid', 'This link is not valid. Check that it was copied whole.');
-export const linkExpired = () =>
-  new AppError(410, 'link_expired', 'This link has expired. Ask for a new one.');
+export const conflict = (code: 'conflict' | 'email_taken' | 'last_manager', message: string) => new AppError(409, code, message);
+export const linkInvalid = () => new AppError(404, 'link_invalid', 'This link is not valid. Check that it was copied whole.');
+export const linkExpired = () => new AppError(410, 'link_expired', 'This link has expired. Ask for a new one.');
 export const linkUsed = () => new AppError(410, 'link_used', 'This link has already been used. Ask for a new one.');
-export const payloadTooLarge = (message = 'The request is too large.') =>
-  new AppError(413, 'payload_too_large', message);
+export const payloadTooLarge = (message = 'The request is too large.') => new AppError(413, 'payload_too_large', message);
 export const invalid = (fields: FieldErrors, message = 'Some fields need attention.') =>
   new AppError(422, 'validation_failed', message, fields);
+export const codeTypo = (message: string) => new AppError(422, 'code_typo', message);
+export const lineageCycle = (message: string, fields?: FieldErrors) => new AppError(422, 'lineage_cycle', message, fields);
+/** A stale edit: carries the current record so the screen can show what changed meanwhile. */
+export class StaleVersionError extends AppError {
+  constructor(
+    message: string,
+    readonly current: unknown,
+  ) {
+    super(409, 'stale_version', message);
+  }
+}
+export const sampleUnavailable = (message: string, fields?: FieldErrors) =>
+  new AppError(409, 'sample_unavailable', message, fields);
 export const tooManyAttempts = (message: string) => new AppError(429, 'too_many_attempts', message);
 export const databaseUnavailable = () =>
   new AppError(503, 'database_unavailable', 'The database is not answering. Try again in a moment.');

@@ -41,4 +41,16 @@ export const SAMPLE_STATUS_LABELS: Record<SampleStatus, string> = {
 export const EDITABLE_STATUSES = ['ready', 'in_process', 'used_up', 'missing', 'discarded'] as const;
 
 /** Materials offered first in forms; any other name may be typed. */
-export const COMMON_MATERIALS = ['graphene', 'graphite', 'hBN', 'MoS2', 'WS2', 'WSe2', 'MoSe2', 'MoTe2', 'Si/SiO2', 'sapphire', 'quartz'] as const;
+export const COMMON_MATERIALS = [
+  'graphene',
+  'graphite',
+  'hBN',
+  'MoS2',
+  'WS2',
+  'WSe2',
+  'MoSe2',
+  'MoTe2',
+  'Si/SiO2',
+  'sapphire',
+  'quartz',
+] as const;

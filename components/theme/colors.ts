@@ -24,6 +24,8 @@ export interface Palette {
   copper: string;
   /** Copper dark enough to be read as text. */
   copperInk: string;
+  copperSoft: string;
+  onCopperSoft: string;
   danger: string;
   onDanger: string;
   dangerPressed: string;
@@ -54,6 +56,8 @@ export const lightPalette: Palette = {
   onPrimarySoft: '#2E2766',
   copper: '#B4622A',
   copperInk: '#9A4F1E',
+  copperSoft: '#F6E6DA',
+  onCopperSoft: '#7A3D14',
   danger: '#A3261C',
   onDanger: '#FFFFFF',
   dangerPressed: '#821D15',
@@ -84,6 +88,8 @@ export const darkPalette: Palette = {
   onPrimarySoft: '#E1DCFF',
   copper: '#E39A63',
   copperInk: '#E39A63',
+  copperSoft: '#3A2618',
+  onCopperSoft: '#F2C29E',
   danger: '#F2A49B',
   onDanger: '#3A0E0A',
   dangerPressed: '#E88A7F',

@@ -10,7 +10,10 @@ export const fontFaces = {
 
 export type TextVariant = 'display' | 'title' | 'heading' | 'body' | 'label' | 'caption' | 'code';
 
-/** Sizes lean large: the app is read at arm's length on a bench, often through safety glasses. */
+/**
+ * Sizes lean large: the app is read at arm's length on a bench, often through safety glasses.
+ * Body text at 16 px is the browsers' default size (common practice, no source).
+ */
 export const typeScale: Record<TextVariant, TextStyle> = {
   display: { fontFamily: fontFaces.sansSemiBold, fontSize: 32, lineHeight: 40, letterSpacing: -0.4 },
   title: { fontFamily: fontFaces.sansSemiBold, fontSize: 26, lineHeight: 34, letterSpacing: -0.2 },
@@ -40,7 +43,10 @@ export const radii = {
 } as const;
 
 export const sizes = {
-  /** Minimum height of anything pressable: gloved fingers are wide. */
+  /**
+   * Minimum height of anything pressable: gloved fingers are wide. Material Design's minimum
+   * touch target is 48 dp; WCAG 2.2 (2.5.5, AAA) asks for 44 CSS px.
+   */
   touchTarget: 48,
   /** Text inputs are a little taller than buttons so the caret is easy to place. */
   inputHeight: 52,
@@ -64,7 +70,10 @@ export const sizes = {
   listPaneWidth: 420,
 } as const;
 
-/** Window widths at which the layout changes. */
+/**
+ * Window widths at which the layout changes: common tablet portrait and landscape widths
+ * (common practice, no source).
+ */
 export const breakpoints = {
   medium: 768,
   wide: 1024,

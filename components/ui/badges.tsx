@@ -1,7 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 import { ROLE_LABELS, type Role } from '@/shared/roles';
 import type { UserStatus } from '@/shared/schemas/user';
-import { radii, space, useTheme, type Palette } from '@/components/theme';
+import { fontFaces, radii, space, useTheme, type Palette } from '@/components/theme';
 import { Text } from './text';
 
 interface Look {
@@ -9,28 +9,26 @@ interface Look {
   text: keyof Palette;
 }
 
-function Chip({ label, look, accessibilityLabel }: { label: string; look: Look; accessibilityLabel: string }) {
-  const { colors } = useTheme();
-  return (
-    <View
-      accessibilityLabel={accessibilityLabel}
-      style={[styles.chip, { backgroundColor: colors[look.background] }]}
-    >
-      <Text variant="caption" style={[styles.chipText, { color: colors[look.text] }]}>
-        {label}
-      </Text>
-    </View>
-  );
-}
-
 const ROLE_LOOKS: Record<Role, Look> = {
   manager: { background: 'primarySoft', text: 'onPrimarySoft' },
-  researcher: { background: 'successSoft', text: 'onSuccessSoft' },
+  researcher: { background: 'copperSoft', text: 'onCopperSoft' },
   reviewer: { background: 'neutralSoft', text: 'onNeutralSoft' },
 };
 
+/** A squared tag, so a role never reads as a status pill at a glance. */
 export function RoleBadge({ role }: { role: Role }) {
-  return <Chip label={ROLE_LABELS[role]} look={ROLE_LOOKS[role]} accessibilityLabel={`Role: ${ROLE_LABELS[role]}`} />;
+  const { colors } = useTheme();
+  const look = ROLE_LOOKS[role];
+  return (
+    <View
+      accessibilityLabel={`Role: ${ROLE_LABELS[role]}`}
+      style={[styles.chip, styles.tag, { backgroundColor: colors[look.background] }]}
+    >
+      <Text variant="caption" style={[styles.chipText, { color: colors[look.text] }]}>
+        {ROLE_LABELS[role]}
+      </Text>
+    </View>
+  );
 }
 
 export const STATUS_LABELS: Record<UserStatus, string> = {
@@ -39,28 +37,42 @@ export const STATUS_LABELS: Record<UserStatus, string> = {
   deactivated: 'Deactivated',
 };
 
-const STATUS_LOOKS: Record<UserStatus, Look> = {
-  invited: { background: 'warnSoft', text: 'onWarnSoft' },
-  active: { background: 'successSoft', text: 'onSuccessSoft' },
-  deactivated: { background: 'neutralSoft', text: 'onNeutralSoft' },
+const STATUS_LOOKS: Record<UserStatus, Look & { dot: keyof Palette }> = {
+  invited: { background: 'warnSoft', text: 'onWarnSoft', dot: 'onWarnSoft' },
+  active: { background: 'successSoft', text: 'onSuccessSoft', dot: 'onSuccessSoft' },
+  deactivated: { background: 'neutralSoft', text: 'onNeutralSoft', dot: 'outline' },
 };
 
+/** A rounded pill with a dot: whether the account can be used right now. */
 export function StatusPill({ status }: { status: UserStatus }) {
+  const { colors } = useTheme();
+  const look = STATUS_LOOKS[status];
   return (
-    <Chip
-      label={STATUS_LABELS[status]}
-      look={STATUS_LOOKS[status]}
+    <View
       accessibilityLabel={`Status: ${STATUS_LABELS[status]}`}
-    />
+      style={[styles.chip, styles.pill, { backgroundColor: colors[look.background] }]}
+    >
+      <View style={[styles.dot, { backgroundColor: colors[look.dot] }]} />
+      <Text variant="caption" style={[styles.chipText, { color: colors[look.text] }]}>
+        {STATUS_LABELS[status]}
+      </Text>
+    </View>
   );
 }
+
+const DOT_SIZE = space.sm;
 
 const styles = StyleSheet.create({
   chip: {
     alignSelf: 'flex-start',
-    borderRadius: radii.pill,
-    paddingHorizontal: space.md,
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.xs + space.xxs,
+    paddingHorizontal: space.sm + space.xxs,
     paddingVertical: space.xxs,
   },
-  chipText: { fontFamily: 'IBMPlexSans_500Medium' },
+  tag: { borderRadius: radii.sm },
+  pill: { borderRadius: radii.pill },
+  dot: { width: DOT_SIZE, height: DOT_SIZE, borderRadius: DOT_SIZE / 2 },
+  chipText: { fontFamily: fontFaces.sansMedium },
 });

@@ -47,7 +47,9 @@ export function Button({
   const textColor = colors[look.text];
 
   return (
+    // Props from a wrapping <Link asChild> (href, role, onClick) arrive in `rest`; our look wins.
     <Pressable
+      {...rest}
       accessibilityRole="button"
       accessibilityLabel={accessibilityLabel ?? title}
       accessibilityState={{ disabled: inactive, busy: loading }}
@@ -61,7 +63,6 @@ export function Button({
         variant === 'quiet' && styles.quiet,
         disabled && !loading && styles.disabled,
       ]}
-      {...rest}
     >
       <View style={styles.content}>
         {loading ? (

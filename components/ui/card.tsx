@@ -14,10 +14,7 @@ export interface CardProps extends ViewProps {
 export function Card({ title, lead, children, style, ...rest }: CardProps) {
   const { colors } = useTheme();
   return (
-    <View
-      style={[styles.card, { backgroundColor: colors.surface, borderColor: colors.hairline }, style]}
-      {...rest}
-    >
+    <View style={[styles.card, { backgroundColor: colors.surface, borderColor: colors.hairline }, style]} {...rest}>
       {title ? (
         <View style={styles.heading}>
           <Heading level={2}>{title}</Heading>

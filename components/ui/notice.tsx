@@ -1,5 +1,5 @@
 import Ionicons from '@expo/vector-icons/Ionicons';
-import type { ReactNode } from 'react';
+import { Children, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { radii, sizes, space, useTheme, type Palette } from '@/components/theme';
 import type { IconName } from './button';
@@ -17,6 +17,7 @@ const TONES: Record<NoticeTone, { background: keyof Palette; text: keyof Palette
 export interface NoticeProps {
   tone: NoticeTone;
   title?: string;
+  /** Plain strings become paragraphs in the notice's colour. */
   children?: ReactNode;
   /** A button or link that resolves the notice, e.g. "Try again". */
   action?: ReactNode;
@@ -42,7 +43,7 @@ export function Notice({ tone, title, children, action, testID }: NoticeProps) {
             {title}
           </Text>
         ) : null}
-        {typeof children === 'string' ? <Text style={{ color }}>{children}</Text> : children}
+        {Children.map(children, (child) => (typeof child === 'string' ? <Text style={{ color }}>{child}</Text> : child))}
         {action ? <View style={styles.action}>{action}</View> : null}
       </View>
     </View>

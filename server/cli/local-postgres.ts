@@ -35,7 +35,10 @@ export function ensurePostgresInstalled(): string {
   }
   progress("Installing PostgreSQL from Debian's packages");
   execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
-  execFileSync('apt-get', ['install', '-y', '-qq', 'postgresql'], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+  execFileSync('apt-get', ['install', '-y', '-qq', 'postgresql'], {
+    stdio: 'inherit',
+    env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
+  });
   bin = postgresBinDir();
   if (!bin) throw new Error('PostgreSQL was installed but initdb was not found under /usr/lib/postgresql.');
   return bin;
@@ -64,8 +67,16 @@ function initCluster(bin: string, superuserPassword: string) {
   }
   try {
     const result = runAsClusterOwner(bin, 'initdb', [
-      '-D', CLUSTER_DIR, '-U', 'postgres', `--pwfile=${pwFile}`,
-      '--auth-local=scram-sha-256', '--auth-host=scram-sha-256', '-E', 'UTF8', '--locale=C.UTF-8',
+      '-D',
+      CLUSTER_DIR,
+      '-U',
+      'postgres',
+      `--pwfile=${pwFile}`,
+      '--auth-local=scram-sha-256',
+      '--auth-host=scram-sha-256',
+      '-E',
+      'UTF8',
+      '--locale=C.UTF-8',
     ]);
     if (result.status !== 0) throw new Error(`initdb failed:\n${result.stdout}\n${result.stderr}`);
   } finally {

@@ -54,7 +54,9 @@ async function main() {
       ? await startMailSink({ host: '127.0.0.1', port: config.smtp.port, dir: config.mailSinkDir })
       : null;
   const server = await startServer(config);
-  progress(`Open ${config.publicBaseUrl} — demo accounts are listed in README.md. Ctrl-C stops the server; \`npm run db:stop\` stops PostgreSQL.`);
+  progress(
+    `Open ${config.publicBaseUrl} — demo accounts are listed in README.md. Ctrl-C stops the server; \`npm run db:stop\` stops PostgreSQL.`,
+  );
 
   const stop = async () => {
     await server.close();

@@ -23,7 +23,10 @@ function ensureChromium() {
   if (process.getuid?.() !== 0) throw new Error('Chromium is needed for the end-to-end suite: sudo apt-get install -y chromium');
   progress("Installing Chromium from Debian's packages (end-to-end suite)");
   execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
-  execFileSync('apt-get', ['install', '-y', '-qq', 'chromium'], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+  execFileSync('apt-get', ['install', '-y', '-qq', 'chromium'], {
+    stdio: 'inherit',
+    env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
+  });
 }
 
 async function freshDatabase(name: string, secrets: ReturnType<typeof loadLocalSecrets>): Promise<DatabaseUrls> {
@@ -39,7 +42,10 @@ async function freshDatabase(name: string, secrets: ReturnType<typeof loadLocalS
 
 function typecheck(): boolean {
   progress('Type-checking (tsc --noEmit)');
-  const result = spawnSync(path.join(REPO_ROOT, 'node_modules', '.bin', 'tsc'), ['--noEmit', '-p', '.'], { cwd: REPO_ROOT, stdio: 'inherit' });
+  const result = spawnSync(path.join(REPO_ROOT, 'node_modules', '.bin', 'tsc'), ['--noEmit', '-p', '.'], {
+    cwd: REPO_ROOT,
+    stdio: 'inherit',
+  });
   return result.status === 0;
 }
 
@@ -108,6 +114,8 @@ async function main() {
 }
 
 main().catch((error: unknown) => {
-  process.stderr.write(`flakeline: tests could not run: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`);
+  process.stderr.write(
+    `flakeline: tests could not run: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`,
+  );
   process.exit(1);
 });

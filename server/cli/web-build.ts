@@ -6,7 +6,18 @@ import { REPO_ROOT } from '../config';
 import { progress } from './progress';
 
 /** Everything the exported web app is built from. */
-const SOURCES = ['app', 'components', 'hooks', 'shared', 'assets', 'app.json', 'babel.config.js', 'metro.config.js', 'package-lock.json', 'tsconfig.json'];
+const SOURCES = [
+  'app',
+  'components',
+  'hooks',
+  'shared',
+  'assets',
+  'app.json',
+  'babel.config.js',
+  'metro.config.js',
+  'package-lock.json',
+  'tsconfig.json',
+];
 const DIST_DIR = path.join(REPO_ROOT, 'dist');
 const STAMP_FILE = path.join(DIST_DIR, '.source-hash');
 

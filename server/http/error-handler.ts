@@ -1,6 +1,16 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { CheckViolationError, ForeignKeyViolationError, NotNullViolationError, UniqueViolationError } from 'objection';
-import { AppError, conflict, csrfInvalid, databaseUnavailable, invalid, malformedJson, notFound, payloadTooLarge } from '../errors';
+import {
+  AppError,
+  StaleVersionError,
+  conflict,
+  csrfInvalid,
+  databaseUnavailable,
+  invalid,
+  malformedJson,
+  notFound,
+  payloadTooLarge,
+} from '../errors';
 
 interface HttpishError {
   type?: string;
@@ -49,7 +59,10 @@ export function errorHandler(log: (message: string, error: unknown) => void): Er
     if (!known) log(`Unhandled error on ${req.method} ${req.originalUrl}`, error);
     const status = known?.status ?? 500;
     const body = known
-      ? { error: { code: known.code, message: known.message, ...(known.fields ? { fields: known.fields } : {}) } }
+      ? {
+          error: { code: known.code, message: known.message, ...(known.fields ? { fields: known.fields } : {}) },
+          ...(known instanceof StaleVersionError ? { current: known.current } : {}),
+        }
       : { error: { code: 'internal', message: 'Something went wrong on the server. It has been logged.' } };
     if (res.headersSent) return;
     res.status(status).json(body);

@@ -67,7 +67,11 @@ export async function readCapturedMail(dir: string): Promise<CapturedMail[]> {
   } catch {
     return [];
   }
-  const newest = names.filter((name) => name.endsWith('.json')).sort().reverse().slice(0, SHOWN_MESSAGES);
+  const newest = names
+    .filter((name) => name.endsWith('.json'))
+    .sort()
+    .reverse()
+    .slice(0, SHOWN_MESSAGES);
   const messages = await Promise.all(
     newest.map(async (name) => CapturedMail.safeParse(JSON.parse(await readFile(path.join(dir, name), 'utf8')))),
   );

@@ -17,7 +17,7 @@ export function invitationMail(props: {
       `Hello ${props.displayName},`,
       '',
       `${props.invitedBy} has invited you to the lab's Flakeline as a ${ROLE_LABELS[props.role].toLowerCase()}.`,
-      'Flakeline keeps the lab\'s samples, their lineage and their thickness evidence.',
+      "Flakeline keeps the lab's samples, their lineage and their thickness evidence.",
       '',
       'Choose your password here:',
       props.link,

@@ -28,7 +28,10 @@ function schemaFor(schema: z.ZodType, io: 'input' | 'output'): JsonSchema {
 /** Path parameters and query fields as OpenAPI parameters, from the route's zod objects. */
 function parametersFor(spec: AnyRouteSpec): JsonSchema[] {
   const parameters: JsonSchema[] = [];
-  for (const [where, schema] of [['path', spec.params], ['query', spec.query]] as const) {
+  for (const [where, schema] of [
+    ['path', spec.params],
+    ['query', spec.query],
+  ] as const) {
     if (!schema) continue;
     const json = z.toJSONSchema(schema, { target: 'openapi-3.0', io: 'input', unrepresentable: 'any' }) as {
       properties?: Record<string, JsonSchema>;
@@ -83,7 +86,13 @@ export function buildOpenApiDocument(specs: readonly AnyRouteSpec[], serverUrl: 
     }
     const parameters = parametersFor(spec);
     if (spec.method !== 'get') {
-      parameters.push({ name: 'x-csrf-token', in: 'header', required: true, schema: { type: 'string' }, description: 'From GET /api/auth/csrf' });
+      parameters.push({
+        name: 'x-csrf-token',
+        in: 'header',
+        required: true,
+        schema: { type: 'string' },
+        description: 'From GET /api/auth/csrf',
+      });
     }
     (paths[toOpenApiPath(spec.path)] ??= {})[spec.method] = {
       summary: spec.summary,

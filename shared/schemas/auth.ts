@@ -2,9 +2,7 @@ import { z } from 'zod';
 import { DisplayNameField, EmailField, LinkTokenField, NewPasswordField, PasswordAttemptField } from './fields';
 import { User } from './user';
 
-export const SignInInput = z
-  .object({ email: EmailField, password: PasswordAttemptField })
-  .meta({ id: 'SignInInput' });
+export const SignInInput = z.object({ email: EmailField, password: PasswordAttemptField }).meta({ id: 'SignInInput' });
 export type SignInInput = z.input<typeof SignInInput>;
 
 export const CsrfToken = z.object({ csrfToken: z.string() }).meta({ id: 'CsrfToken' });
@@ -43,9 +41,7 @@ export const ChangePasswordInput = z
   .meta({ id: 'ChangePasswordInput' });
 export type ChangePasswordInput = z.input<typeof ChangePasswordInput>;
 
-export const AccountUpdateInput = z
-  .object({ displayName: DisplayNameField })
-  .meta({ id: 'AccountUpdateInput' });
+export const AccountUpdateInput = z.object({ displayName: DisplayNameField }).meta({ id: 'AccountUpdateInput' });
 export type AccountUpdateInput = z.input<typeof AccountUpdateInput>;
 
 export const Accepted = z.object({ message: z.string() }).meta({ id: 'Accepted' });

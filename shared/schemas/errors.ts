@@ -17,6 +17,10 @@ export const ERROR_CODES = [
   'link_expired',
   'link_used',
   'validation_failed',
+  'code_typo',
+  'lineage_cycle',
+  'stale_version',
+  'sample_unavailable',
   'too_many_attempts',
   'database_unavailable',
   'mail_unavailable',
@@ -31,6 +35,8 @@ export const ApiErrorBody = z
       message: z.string(),
       fields: z.record(z.string(), z.array(z.string())).optional(),
     }),
+    /** With stale_version: the record as it is now. */
+    current: z.unknown().optional(),
   })
   .meta({ id: 'ApiError' });
 export type ApiErrorBody = z.infer<typeof ApiErrorBody>;

@@ -1,11 +1,5 @@
 import { z } from 'zod';
-import {
-  DISPLAY_NAME_MAX_LENGTH,
-  EMAIL_MAX_LENGTH,
-  LINK_TOKEN_LENGTH,
-  PASSWORD_MAX_LENGTH,
-  PASSWORD_MIN_LENGTH,
-} from './limits';
+import { DISPLAY_NAME_MAX_LENGTH, EMAIL_MAX_LENGTH, LINK_TOKEN_LENGTH, PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from './limits';
 
 /** E-mail addresses are compared case-insensitively, so they are stored lower-case. */
 export const EmailField = z

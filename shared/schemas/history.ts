@@ -7,6 +7,7 @@ export const HISTORY_EVENT_TYPES = [
   'sample.retired',
   'sample.used',
   'sample.treated',
+  'sample.linked',
   'step.logged',
   'samples.imported',
 ] as const;

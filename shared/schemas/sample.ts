@@ -7,10 +7,8 @@ export const MATERIAL_MAX_LENGTH = 60;
 export const RETIREMENT_REASON_MAX_LENGTH = 500;
 export const SAMPLE_PAGE_SIZE_MAX = 200;
 
-const text = (max: number, label: string) =>
-  z.string().trim().max(max, `${label} has at most ${max} characters.`);
-const positive = (label: string) =>
-  z.number({ error: `${label} must be a number.` }).positive(`${label} must be above zero.`);
+const text = (max: number, label: string) => z.string().trim().max(max, `${label} has at most ${max} characters.`);
+const positive = (label: string) => z.number({ error: `${label} must be a number.` }).positive(`${label} must be above zero.`);
 
 export const SampleKindField = z.enum(SAMPLE_KINDS, { error: 'Choose a kind of sample.' });
 export const MaterialField = z
@@ -102,9 +100,7 @@ export const Sample = SampleSummary.extend({
   retiredReason: z.string().nullable(),
   createdAt: z.iso.datetime(),
   updatedAt: z.iso.datetime(),
-  madeBy: z
-    .object({ stepId: z.number(), type: z.string(), startedAt: z.iso.datetime().nullable() })
-    .nullable(),
+  madeBy: z.object({ stepId: z.number(), type: z.string(), startedAt: z.iso.datetime().nullable() }).nullable(),
   parents: z.array(SampleSummary),
   children: z.array(SampleSummary),
 }).meta({ id: 'Sample' });

@@ -107,7 +107,12 @@ export const CleavingParameters = z.object({ method: shortText('method', 80).opt
 export const StepOutputInput = z.object({
   kind: z.enum(SAMPLE_KINDS, { error: 'Choose the kind of output.' }),
   material: MaterialField.optional(),
-  count: z.number().int().min(1, 'Make at least one.').max(STEP_OUTPUT_COUNT_MAX, `At most ${STEP_OUTPUT_COUNT_MAX} at once.`).default(1),
+  count: z
+    .number()
+    .int()
+    .min(1, 'Make at least one.')
+    .max(STEP_OUTPUT_COUNT_MAX, `At most ${STEP_OUTPUT_COUNT_MAX} at once.`)
+    .default(1),
   name: z.string().trim().max(120).optional(),
   properties: SampleProperties.optional(),
 });

@@ -130,7 +130,7 @@ describe('CSRF protection', () => {
     expect(await lab.knex('users').where({ id: other.id }).first()).toMatchObject({ role: 'researcher' });
   });
 
-  it("403 csrf_invalid for a token from another session", async () => {
+  it('403 csrf_invalid for a token from another session', async () => {
     const manager = await buildManager(lab.knex);
     const { agent } = await signedInAgent(lab.app, manager.email);
     const { csrfToken: foreignToken } = await anonymousAgent(lab.app);

@@ -69,7 +69,10 @@ async function closedPort(): Promise<number> {
 
 /** A second app on the same database whose mail server refuses connections. */
 async function startAppWithoutMail(): Promise<TestApp> {
-  return startTestApp({ knex: lab.knex, config: { smtp: { host: '127.0.0.1', port: await closedPort(), from: 'x <x@x.test>' } } });
+  return startTestApp({
+    knex: lab.knex,
+    config: { smtp: { host: '127.0.0.1', port: await closedPort(), from: 'x <x@x.test>' } },
+  });
 }
 
 describe('POST /api/users/invitations', () => {
@@ -133,7 +136,12 @@ describe('POST /api/users/invitations', () => {
     const input = newcomer({ email: 'Mixed.Case@Lab.Flakeline.test', role: 'reviewer' });
     const response = await agent.post('/api/users/invitations').set('x-csrf-token', csrfToken).send(input);
     expect(response.status).toBe(201);
-    expect(response.body.user).toMatchObject({ email: 'mixed.case@lab.flakeline.test', role: 'reviewer', status: 'invited', lastSignInAt: null });
+    expect(response.body.user).toMatchObject({
+      email: 'mixed.case@lab.flakeline.test',
+      role: 'reviewer',
+      status: 'invited',
+      lastSignInAt: null,
+    });
     expect(response.body.user.passwordHash).toBeUndefined();
 
     const [message, ...others] = (await lab.mail()).filter((mail) => mail.to.includes('mixed.case@lab.flakeline.test'));
@@ -147,7 +155,10 @@ describe('POST /api/users/invitations', () => {
     const row = await lab.knex('link_tokens').where({ user_id: response.body.user.id }).first();
     expect(row).toMatchObject({ purpose: 'invitation', usedAt: null, revokedAt: null });
     expect(row.tokenHash).not.toContain(token);
-    expect(await lab.knex('users').where({ id: response.body.user.id }).first()).toMatchObject({ invitedById: manager.id, passwordHash: null });
+    expect(await lab.knex('users').where({ id: response.body.user.id }).first()).toMatchObject({
+      invitedById: manager.id,
+      passwordHash: null,
+    });
   });
 });
 
@@ -186,7 +197,11 @@ describe('GET /api/auth/invitations/:token', () => {
     const { token, person } = await invite({ role: 'reviewer' });
     const response = await request(lab.app).get(`/api/auth/invitations/${token}`);
     expect(response.status).toBe(200);
-    expect(response.body).toEqual({ email: person.email, displayName: expect.stringMatching(/^New Person \d+$/), role: 'reviewer' });
+    expect(response.body).toEqual({
+      email: person.email,
+      displayName: expect.stringMatching(/^New Person \d+$/),
+      role: 'reviewer',
+    });
     expect((await request(lab.app).get(`/api/auth/invitations/${token}`)).status).toBe(200);
   });
 });
@@ -236,7 +251,13 @@ describe('POST /api/auth/invitations/accept', () => {
     const { token, person } = await invite({ role: 'reviewer' });
     const { agent, csrfToken, response } = await accept(token, { displayName: '  Dr. Mo S2  ' });
     expect(response.status).toBe(200);
-    expect(response.body.user).toMatchObject({ id: person.id, email: person.email, displayName: 'Dr. Mo S2', role: 'reviewer', status: 'active' });
+    expect(response.body.user).toMatchObject({
+      id: person.id,
+      email: person.email,
+      displayName: 'Dr. Mo S2',
+      role: 'reviewer',
+      status: 'active',
+    });
     expect(response.body.csrfToken).not.toBe(csrfToken);
 
     const session = await agent.get('/api/auth/session');

@@ -47,7 +47,10 @@ describe('POST /api/auth/password-reset-requests', () => {
   });
 
   it('429 too_many_attempts after too many requests from one client', async () => {
-    const strict = await startTestApp({ knex: lab.knex, config: { signInLimits: { windowMs: 60_000, perAccount: 2, perAddress: 100 } } });
+    const strict = await startTestApp({
+      knex: lab.knex,
+      config: { signInLimits: { windowMs: 60_000, perAccount: 2, perAddress: 100 } },
+    });
     try {
       expect((await requestReset('first@lab.flakeline.test', strict.app)).status).toBe(202);
       expect((await requestReset('second@lab.flakeline.test', strict.app)).status).toBe(202);
@@ -85,7 +88,10 @@ describe('POST /api/auth/password-reset-requests', () => {
     const person = await buildPerson(lab.knex);
     const mailDown = await startTestApp({
       knex: lab.knex,
-      config: { signInLimits: GENEROUS_LIMITS, smtp: { host: '127.0.0.1', port: 1, from: 'Flakeline <flakeline@flakeline.test>' } },
+      config: {
+        signInLimits: GENEROUS_LIMITS,
+        smtp: { host: '127.0.0.1', port: 1, from: 'Flakeline <flakeline@flakeline.test>' },
+      },
     });
     try {
       const known = await requestReset(person.email, mailDown.app);

@@ -88,7 +88,10 @@ describe('PATCH /api/users/:id', () => {
 
   it('422 validation_failed for an id too large to be one, rather than a database error', async () => {
     const { agent, csrfToken } = await signedInManager();
-    const response = await agent.patch('/api/users/99999999999999999999').set('x-csrf-token', csrfToken).send({ role: 'reviewer' });
+    const response = await agent
+      .patch('/api/users/99999999999999999999')
+      .set('x-csrf-token', csrfToken)
+      .send({ role: 'reviewer' });
     expect(response.status).toBe(422);
     expect(response.body.error.code).toBe('validation_failed');
     expect(Object.keys(response.body.error.fields)).toEqual(['params.id']);
@@ -161,8 +164,13 @@ describe('PATCH /api/users/:id', () => {
       const outcome = responses.map((response) => `${response.status} ${response.body.error?.code ?? 'ok'}`).sort();
       // One demotion wins; the other either finds itself the last manager or, if it arrives after
       // its sender was demoted, is no longer a manager's request at all.
-      expect([['200 ok', '409 last_manager'], ['200 ok', '403 forbidden']]).toContainEqual(outcome);
-      expect(await lab.knex('users').where({ role: 'manager', status: 'active' }).count({ count: '*' }).first()).toEqual({ count: 1 });
+      expect([
+        ['200 ok', '409 last_manager'],
+        ['200 ok', '403 forbidden'],
+      ]).toContainEqual(outcome);
+      expect(await lab.knex('users').where({ role: 'manager', status: 'active' }).count({ count: '*' }).first()).toEqual({
+        count: 1,
+      });
     }
   });
 
@@ -287,12 +295,18 @@ describe('POST /api/account/password', () => {
   });
 
   it('429 too_many_attempts after repeated wrong current passwords, so a borrowed session cannot guess it', async () => {
-    const strict = await startTestApp({ knex: lab.knex, config: { signInLimits: { windowMs: 60_000, perAccount: 2, perAddress: 100 } } });
+    const strict = await startTestApp({
+      knex: lab.knex,
+      config: { signInLimits: { windowMs: 60_000, perAccount: 2, perAddress: 100 } },
+    });
     try {
       const person = await buildPerson(lab.knex);
       const { agent, csrfToken } = await signedInAgent(strict.app, person.email);
       const attempt = () =>
-        agent.post('/api/account/password').set('x-csrf-token', csrfToken).send({ currentPassword: 'a guess', newPassword: NEW_PASSWORD });
+        agent
+          .post('/api/account/password')
+          .set('x-csrf-token', csrfToken)
+          .send({ currentPassword: 'a guess', newPassword: NEW_PASSWORD });
       expect((await attempt()).status).toBe(401);
       expect((await attempt()).status).toBe(401);
       const response = await attempt();

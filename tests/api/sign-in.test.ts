@@ -40,8 +40,14 @@ describe('POST /api/auth/sign-in', () => {
   it('401 invalid_credentials for a wrong password and for an unknown address alike', async () => {
     const person = await buildPerson(lab.knex);
     const { agent, csrfToken } = await anonymousAgent(lab.app);
-    const wrongPassword = await agent.post('/api/auth/sign-in').set('x-csrf-token', csrfToken).send({ email: person.email, password: 'not the password' });
-    const unknown = await agent.post('/api/auth/sign-in').set('x-csrf-token', csrfToken).send({ email: 'nobody@lab.flakeline.test', password: TEST_PASSWORD });
+    const wrongPassword = await agent
+      .post('/api/auth/sign-in')
+      .set('x-csrf-token', csrfToken)
+      .send({ email: person.email, password: 'not the password' });
+    const unknown = await agent
+      .post('/api/auth/sign-in')
+      .set('x-csrf-token', csrfToken)
+      .send({ email: 'nobody@lab.flakeline.test', password: TEST_PASSWORD });
     expect([wrongPassword.status, unknown.status]).toEqual([401, 401]);
     expect(wrongPassword.body.error).toEqual(unknown.body.error);
     expect(unknown.body.error.code).toBe('invalid_credentials');
@@ -50,7 +56,10 @@ describe('POST /api/auth/sign-in', () => {
   it('403 account_deactivated for a deactivated account with the right password', async () => {
     const person = await buildPerson(lab.knex, { status: 'deactivated' });
     const { agent, csrfToken } = await anonymousAgent(lab.app);
-    const response = await agent.post('/api/auth/sign-in').set('x-csrf-token', csrfToken).send({ email: person.email, password: TEST_PASSWORD });
+    const response = await agent
+      .post('/api/auth/sign-in')
+      .set('x-csrf-token', csrfToken)
+      .send({ email: person.email, password: TEST_PASSWORD });
     expect(response.status).toBe(403);
     expect(response.body.error.code).toBe('account_deactivated');
   });
@@ -59,9 +68,16 @@ describe('POST /api/auth/sign-in', () => {
     const person = await buildPerson(lab.knex);
     const { agent, csrfToken } = await anonymousAgent(lab.app);
     for (let attempt = 0; attempt < 3; attempt += 1) {
-      await agent.post('/api/auth/sign-in').set('x-csrf-token', csrfToken).send({ email: person.email, password: 'wrong guess' }).expect(401);
+      await agent
+        .post('/api/auth/sign-in')
+        .set('x-csrf-token', csrfToken)
+        .send({ email: person.email, password: 'wrong guess' })
+        .expect(401);
     }
-    const response = await agent.post('/api/auth/sign-in').set('x-csrf-token', csrfToken).send({ email: person.email, password: TEST_PASSWORD });
+    const response = await agent
+      .post('/api/auth/sign-in')
+      .set('x-csrf-token', csrfToken)
+      .send({ email: person.email, password: TEST_PASSWORD });
     expect(response.status).toBe(429);
     expect(response.body.error.code).toBe('too_many_attempts');
     expect(response.headers['ratelimit-policy']).toBeDefined();
@@ -70,7 +86,10 @@ describe('POST /api/auth/sign-in', () => {
   it('200 with the person, a fresh CSRF token and an HttpOnly SameSite session cookie; e-mail case does not matter', async () => {
     const person = await buildPerson(lab.knex, { role: 'reviewer' });
     const { agent, csrfToken } = await anonymousAgent(lab.app);
-    const response = await agent.post('/api/auth/sign-in').set('x-csrf-token', csrfToken).send({ email: person.email.toUpperCase(), password: TEST_PASSWORD });
+    const response = await agent
+      .post('/api/auth/sign-in')
+      .set('x-csrf-token', csrfToken)
+      .send({ email: person.email.toUpperCase(), password: TEST_PASSWORD });
     expect(response.status).toBe(200);
     expect(response.body.user).toMatchObject({ email: person.email, role: 'reviewer', status: 'active' });
     expect(response.body.user.passwordHash).toBeUndefined();

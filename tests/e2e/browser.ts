@@ -41,7 +41,12 @@ export async function openBrowser(viewport: Viewport): Promise<BrowserSession> {
     headless: true,
     args: [...CHROMIUM_ARGS, `--user-data-dir=${profile}`],
   });
-  const context = await browser.newContext({ viewport, deviceScaleFactor: 1, isMobile: viewport === PHONE, hasTouch: viewport === PHONE });
+  const context = await browser.newContext({
+    viewport,
+    deviceScaleFactor: 1,
+    isMobile: viewport === PHONE,
+    hasTouch: viewport === PHONE,
+  });
   const page = await context.newPage();
   const offLoopbackRequests: string[] = [];
   page.on('request', (request) => {

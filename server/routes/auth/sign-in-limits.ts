@@ -4,8 +4,7 @@ import type { SignInLimits } from '../../config';
 import { tooManyAttempts } from '../../errors';
 
 const clientAddress = (req: Request) => ipKeyGenerator(req.ip ?? 'unknown');
-const attemptedEmail = (req: Request) =>
-  typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : '';
+const attemptedEmail = (req: Request) => (typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : '');
 
 function limiter(windowMs: number, limit: number, key: (req: Request) => string, message: string): RequestHandler {
   return rateLimit({
@@ -33,7 +32,12 @@ export function signInLimiters(limits: SignInLimits): RequestHandler[] {
       (req) => `${clientAddress(req)}|${attemptedEmail(req)}`,
       `Too many failed sign-ins for this account. Wait ${minutes} minutes or reset your password.`,
     ),
-    limiter(limits.windowMs, limits.perAddress, clientAddress, `Too many failed sign-ins from this device. Wait ${minutes} minutes.`),
+    limiter(
+      limits.windowMs,
+      limits.perAddress,
+      clientAddress,
+      `Too many failed sign-ins from this device. Wait ${minutes} minutes.`,
+    ),
   ];
 }
 
