@@ -22,7 +22,7 @@ export class HistoryEventModel extends BaseModel {
     actor: {
       relation: BaseModel.BelongsToOneRelation,
       modelClass: UserModel,
-      join: { from: 'history_events.actor_id', to: 'users.id' },
+      join: { from: 'history_events.actorId', to: 'users.id' },
     },
   });
 }

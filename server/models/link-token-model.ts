@@ -21,7 +21,7 @@ export class LinkTokenModel extends BaseModel {
     user: {
       relation: BaseModel.BelongsToOneRelation,
       modelClass: UserModel,
-      join: { from: 'link_tokens.user_id', to: 'users.id' },
+      join: { from: 'link_tokens.userId', to: 'users.id' },
     },
   });
 }

@@ -30,7 +30,7 @@ export class SampleModel extends BaseModel {
     owner: {
       relation: BaseModel.BelongsToOneRelation,
       modelClass: UserModel,
-      join: { from: 'samples.owner_id', to: 'users.id' },
+      join: { from: 'samples.ownerId', to: 'users.id' },
     },
   });
 

@@ -22,7 +22,7 @@ export class StepModel extends BaseModel {
     operator: {
       relation: BaseModel.BelongsToOneRelation,
       modelClass: UserModel,
-      join: { from: 'steps.operator_id', to: 'users.id' },
+      join: { from: 'steps.operatorId', to: 'users.id' },
     },
   });
 }
