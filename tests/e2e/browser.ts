@@ -1,4 +1,4 @@
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { mkdirSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
@@ -35,11 +35,11 @@ export interface BrowserSession {
 }
 
 export async function openBrowser(viewport: Viewport): Promise<BrowserSession> {
-  const profile = mkdtempSync(path.join(os.tmpdir(), 'flakeline-chromium-'));
+  // Playwright gives every launch a fresh, throwaway profile of its own.
   const browser = await chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     headless: true,
-    args: [...CHROMIUM_ARGS, `--user-data-dir=${profile}`],
+    args: CHROMIUM_ARGS,
   });
   const context = await browser.newContext({
     viewport,
@@ -60,10 +60,7 @@ export async function openBrowser(viewport: Viewport): Promise<BrowserSession> {
     context,
     page,
     offLoopbackRequests,
-    close: async () => {
-      await browser.close();
-      rmSync(profile, { recursive: true, force: true });
-    },
+    close: () => browser.close(),
   };
 }
 
