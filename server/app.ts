@@ -17,6 +17,7 @@ import { buildOpenApiDocument } from './openapi/openapi-document';
 import { accountRoutes } from './routes/account/account-routes';
 import { authRoutes } from './routes/auth/auth-routes';
 import { mailSinkRoutes } from './routes/mail-sink/mail-sink-routes';
+import { sampleCsvRoutes } from './routes/samples/sample-csv-routes';
 import { sampleRoutes } from './routes/samples/sample-routes';
 import { stepRoutes } from './routes/steps/step-routes';
 import { systemRoutes } from './routes/system/system-routes';
@@ -29,6 +30,7 @@ export function apiRouteSpecs(context: AppContext): AnyRouteSpec[] {
     ...accountRoutes(context),
     ...userRoutes(context),
     ...mailSinkRoutes(context),
+    ...sampleCsvRoutes(context),
     ...sampleRoutes(context),
     ...stepRoutes(context),
   ];

@@ -15,7 +15,9 @@ if (!commands[command]) {
   process.exit(2);
 }
 
-const lockHash = createHash('sha256').update(readFileSync(path.join(root, 'package-lock.json'))).digest('hex');
+const lockHash = createHash('sha256')
+  .update(readFileSync(path.join(root, 'package-lock.json')))
+  .digest('hex');
 const stamp = path.join(root, 'node_modules', '.flakeline-lock-hash');
 if (!existsSync(stamp) || readFileSync(stamp, 'utf8').trim() !== lockHash) {
   process.stdout.write('flakeline: Installing dependencies (npm ci)\n');

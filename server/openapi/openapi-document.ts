@@ -68,10 +68,12 @@ export function buildOpenApiDocument(specs: readonly AnyRouteSpec[], serverUrl: 
   const paths: Record<string, Record<string, unknown>> = {};
   for (const spec of specs) {
     const responses: Record<string, unknown> = {};
-    const success = spec.successStatus ?? (spec.response ? 200 : 204);
-    responses[String(success)] = spec.response
-      ? { description: 'Success', content: { 'application/json': { schema: schemaFor(spec.response, 'output') } } }
-      : { description: 'Success, no content' };
+    const success = spec.successStatus ?? (spec.response || spec.producesType ? 200 : 204);
+    responses[String(success)] = spec.producesType
+      ? { description: 'Success', content: { [spec.producesType]: { schema: { type: 'string' } } } }
+      : spec.response
+        ? { description: 'Success', content: { 'application/json': { schema: schemaFor(spec.response, 'output') } } }
+        : { description: 'Success, no content' };
     const errorStatuses = new Set<number>(spec.errors ?? []);
     if (spec.access !== 'public') errorStatuses.add(401);
     if (Array.isArray(spec.access)) errorStatuses.add(403);
@@ -100,7 +102,12 @@ export function buildOpenApiDocument(specs: readonly AnyRouteSpec[], serverUrl: 
       tags: [spec.tag],
       ...(parameters.length ? { parameters } : {}),
       ...(spec.body
-        ? { requestBody: { required: true, content: { 'application/json': { schema: schemaFor(spec.body, 'input') } } } }
+        ? {
+            requestBody: {
+              required: true,
+              content: { [spec.bodyType ?? 'application/json']: { schema: schemaFor(spec.body, 'input') } },
+            },
+          }
         : {}),
       responses,
     };

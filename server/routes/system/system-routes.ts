@@ -29,6 +29,7 @@ export function systemRoutes(context: AppContext, openApiDocument: () => unknown
       tag: 'System',
       summary: 'This description of the API, generated from its zod schemas',
       access: 'public',
+      successStatus: 200,
       handler: ({ res }) => {
         res.json(openApiDocument());
       },
