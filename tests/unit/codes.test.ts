@@ -21,7 +21,7 @@ describe('Crockford Base32 symbols', () => {
     [35, '13', '='],
     [36, '14', 'U'],
     [37, '15', '0'],
-    [1234, '16J', '$'], // 1234 = 1·1024 + 6·32 + 18 (J); 1234 mod 37 = 13·... → 34 → $
+    [1234, '16J', 'D'], // 1234 = 1·1024 + 6·32 + 18 (J); 1234 = 33·37 + 13, and check symbol 13 is D
   ])('value %i encodes as %s with check symbol %s', (value, symbols, check) => {
     expect(encodeBase32(value, symbols.length)).toBe(symbols);
     expect(checkSymbol(value)).toBe(check);
