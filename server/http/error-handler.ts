@@ -35,6 +35,13 @@ export function toAppError(error: unknown): AppError | null {
   if (httpish.type === 'entity.too.large') return payloadTooLarge('The request body is larger than the API accepts.');
   if (httpish.code === 'EBADCSRFTOKEN') return csrfInvalid();
   if (isDatabaseDown(error)) return databaseUnavailable();
+  const code = httpish.code ?? (error as { nativeError?: HttpishError } | undefined)?.nativeError?.code;
+  // Two transactions waited on each other and PostgreSQL cancelled one: nothing was saved.
+  if (code === '40P01' || code === '40001') {
+    return conflict('conflict', 'Someone changed the same records at the same moment. Nothing was saved; try again.');
+  }
+  // Text PostgreSQL cannot store (e.g. a NUL character).
+  if (code === '22P05' || code === '22021') return invalid({ _: ['The text contains a character that cannot be stored.'] });
   // Rules the database enforces as well as the code: report which one, not a stack trace.
   if (error instanceof UniqueViolationError) {
     return conflict('conflict', `A record with the same ${error.columns.join(', ')} already exists.`);

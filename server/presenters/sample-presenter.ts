@@ -36,6 +36,7 @@ export async function presentSample(knex: Knex, sample: SampleModel): Promise<Sa
   const madeBy = await knex('step_samples as ss')
     .join('steps as st', 'st.id', 'ss.step_id')
     .where({ 'ss.sample_id': sample.id, 'ss.role': 'output' })
+    .orderBy('st.id')
     .first('st.id as stepId', 'st.type', 'st.started_at as startedAt');
   const parents = await knex('lineage_links as l')
     .join('samples as s', 's.id', 'l.parent_id')

@@ -1,4 +1,5 @@
 import { randomInt } from 'node:crypto';
+import { isDeepStrictEqual } from 'node:util';
 import type { Knex } from 'knex';
 import { CODE_BODY_LENGTH, formatCode } from '../../shared/codes';
 import { SAMPLE_CODE_PREFIXES, type SampleKind, type SampleStatus } from '../../shared/samples';
@@ -109,7 +110,7 @@ export async function editSample(props: {
   for (const [field, value] of Object.entries(props.changes) as [EditableField, unknown][]) {
     if (value === undefined) continue;
     const before = sample[field] ?? null;
-    if (JSON.stringify(before) !== JSON.stringify(value)) changed[field] = { from: before, to: value };
+    if (!isDeepStrictEqual(before, value)) changed[field] = { from: before, to: value };
   }
   if (Object.keys(changed).length === 0) return sample;
 
@@ -154,6 +155,8 @@ export async function retireSample(props: {
       await presentSample(props.trx, sample),
     );
   }
+  // patchAndFetch updates `sample` in place, so keep the status it had.
+  const previousStatus = sample.status;
   const updated = await sample
     .$query(props.trx)
     .patchAndFetch({ status: 'retired', retiredReason: props.reason, version: sample.version + 1 });
@@ -162,7 +165,7 @@ export async function retireSample(props: {
       type: 'sample.retired',
       actorId: props.actor.id,
       subjectCode: sample.code,
-      payload: { version: updated.version, from: sample.status, reason: props.reason },
+      payload: { version: updated.version, from: previousStatus, reason: props.reason },
     },
   ]);
   return updated;

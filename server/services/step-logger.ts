@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import type { StepCreate } from '../../shared/schemas/step';
 import { STEP_TYPE_LABELS } from '../../shared/steps';
 import { AppError, invalid, lineageCycle, notFound, sampleUnavailable, type FieldErrors } from '../errors';
-import type { SampleModel } from '../models/sample-model';
+import { SampleModel } from '../models/sample-model';
 import { StepModel } from '../models/step-model';
 import { UserModel } from '../models/user-model';
 import { appendHistory, type NewHistoryEvent } from './history-chain';
@@ -21,13 +21,23 @@ async function resolveAll(trx: Knex.Transaction, codes: string[], field: string,
   const found: SampleModel[] = [];
   for (const [index, code] of codes.entries()) {
     try {
-      found.push(await findSampleByCode(code, { trx, lock: true }));
+      found.push(await findSampleByCode(code, { trx }));
     } catch (error) {
       if (!(error instanceof AppError)) throw error;
       (errors[`${field}.${index}`] ??= []).push(error.message);
     }
   }
   return found;
+}
+
+/**
+ * Locks every named sample in one statement, in id order, so two steps naming the same samples
+ * in different orders queue up instead of deadlocking; returns the rows as they are once locked.
+ */
+async function lockInIdOrder(trx: Knex.Transaction, samples: SampleModel[]): Promise<Map<number, SampleModel>> {
+  const ids = [...new Set(samples.map((sample) => sample.id))];
+  const locked = ids.length ? await SampleModel.query(trx).whereIn('id', ids).orderBy('id').forUpdate() : [];
+  return new Map(locked.map((sample) => [sample.id, sample]));
 }
 
 /**
@@ -38,29 +48,36 @@ async function resolveAll(trx: Knex.Transaction, codes: string[], field: string,
 export async function logStep(props: { trx: Knex.Transaction; actor: UserModel; input: StepCreate }) {
   const { trx, actor, input } = props;
   const errors: FieldErrors = {};
-  const inputs = await resolveAll(
-    trx,
-    input.inputs.map((item) => item.code),
-    'inputs',
-    errors,
-  );
-  const treated = await resolveAll(trx, input.treated, 'treated', errors);
-  const existingOutputs = await resolveAll(trx, input.existingOutputs, 'existingOutputs', errors);
+  const named = {
+    inputs: await resolveAll(
+      trx,
+      input.inputs.map((item) => item.code),
+      'inputs',
+      errors,
+    ),
+    treated: await resolveAll(trx, input.treated, 'treated', errors),
+    existingOutputs: await resolveAll(trx, input.existingOutputs, 'existingOutputs', errors),
+  };
   if (Object.keys(errors).length) throw invalid(errors, 'Some of the samples named in this step could not be found.');
 
+  // A sample listed twice is a slip, except an input named as an output: that is a loop, which
+  // the cycle check below names as such.
   const seen = new Map<string, string>();
-  for (const [field, list] of [
-    ['inputs', inputs],
-    ['treated', treated],
-    ['existingOutputs', existingOutputs],
-  ] as const) {
+  for (const [field, list] of Object.entries(named)) {
     for (const [index, sample] of list.entries()) {
       const earlier = seen.get(sample.code);
-      if (earlier) (errors[`${field}.${index}`] ??= []).push(`${sample.code} is already listed under ${earlier}.`);
+      const isLoop = earlier === 'inputs' && field === 'existingOutputs';
+      if (earlier && !isLoop) (errors[`${field}.${index}`] ??= []).push(`${sample.code} is already listed under ${earlier}.`);
       seen.set(sample.code, field);
     }
   }
   if (Object.keys(errors).length) throw invalid(errors, 'A sample can take part in a step only once.');
+
+  const locked = await lockInIdOrder(trx, [...named.inputs, ...named.treated, ...named.existingOutputs]);
+  const current = (list: SampleModel[]) => list.map((sample) => locked.get(sample.id) ?? sample);
+  const inputs = current(named.inputs);
+  const treated = current(named.treated);
+  const existingOutputs = current(named.existingOutputs);
 
   const unusable = [...inputs, ...treated].filter((sample) => UNUSABLE.has(sample.status));
   if (unusable.length) {

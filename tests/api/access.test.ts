@@ -1,6 +1,7 @@
 import type { Test } from 'supertest';
 import { issueLinkToken } from '../../server/services/link-tokens';
 import { buildManager, buildPerson, TEST_PASSWORD } from '../helpers/factories';
+import { crystalInput, insertSample, insertStep, stepBody } from '../helpers/sample-factories';
 import { anonymousAgent, signedInAgent } from '../helpers/session-agent';
 import { resetDatabase, startTestApp, type TestApp } from '../helpers/test-app';
 
@@ -19,6 +20,7 @@ interface Scene {
   get: (path: string) => Test;
   post: (path: string, body?: object) => Test;
   patch: (path: string, body: object) => Test;
+  postCsv: (path: string, csv: string) => Test;
   /** An active researcher who is not the caller. */
   other: { id: number; email: string };
   /** A person with an open invitation, and its token. */
@@ -26,6 +28,9 @@ interface Scene {
   invitationToken: string;
   /** An unused password reset token for `other`. */
   resetToken: string;
+  /** A ready crystal owned by `other`, and the step that exfoliated it (without using it up). */
+  sample: { code: string; version: number };
+  stepId: number;
 }
 
 interface AccessRow {
@@ -71,6 +76,19 @@ const ACCESS_TABLE: AccessRow[] = [
   row('PATCH /users/:id',                        401,     403,     403,      200, (s) => s.patch(`/api/users/${s.other.id}`, { role: 'reviewer' })),
   row('POST /users/:id/invitation',              401,     403,     403,      202, (s) => s.post(`/api/users/${s.invited.id}/invitation`)),
   row('GET /mail-sink/messages',                 401,     403,     403,      200, (s) => s.get('/api/mail-sink/messages')),
+  row('GET /samples',                            401,     200,     200,      200, (s) => s.get('/api/samples?kind=crystal,chip&sort=code')),
+  row('POST /samples',                           401,     403,     201,      201, (s) => s.post('/api/samples', crystalInput())),
+  row('GET /samples/:code',                      401,     200,     200,      200, (s) => s.get(`/api/samples/${s.sample.code}`)),
+  row('PATCH /samples/:code',                    401,     403,     200,      200, (s) => s.patch(`/api/samples/${s.sample.code}`, { version: s.sample.version, note: 'Basal plane scratched' })),
+  row('POST /samples/:code/retirement',          401,     403,     403,      200, (s) => s.post(`/api/samples/${s.sample.code}/retirement`, { version: s.sample.version, reason: 'Duplicate record' })),
+  row('GET /samples/:code/ancestors',            401,     200,     200,      200, (s) => s.get(`/api/samples/${s.sample.code}/ancestors`)),
+  row('GET /samples/:code/descendants',          401,     200,     200,      200, (s) => s.get(`/api/samples/${s.sample.code}/descendants`)),
+  row('GET /samples/:code/history',              401,     200,     200,      200, (s) => s.get(`/api/samples/${s.sample.code}/history`)),
+  row('GET /samples.csv',                        401,     200,     200,      200, (s) => s.get('/api/samples.csv?kind=crystal')),
+  row('POST /samples/imports',                   401,     403,     200,      200, (s) => s.postCsv('/api/samples/imports?mode=preview', 'kind,material\ncrystal,MoS2\n')),
+  row('POST /steps',                             401,     403,     201,      201, (s) => s.post('/api/steps', stepBody('exfoliation', { inputs: [{ code: s.sample.code }], outputs: [{ kind: 'chip', count: 2 }] }))),
+  row('GET /steps/:id',                          401,     200,     200,      200, (s) => s.get(`/api/steps/${s.stepId}`)),
+  row('GET /history/verify',                     401,     200,     200,      200, (s) => s.get('/api/history/verify')),
 ];
 
 async function issueToken(userId: number, purpose: 'invitation' | 'password_reset'): Promise<string> {
@@ -85,6 +103,12 @@ async function sceneFor(caller: Caller): Promise<Scene> {
   const { agent, csrfToken } = session;
   const other = await buildPerson(lab.knex, { role: 'researcher' });
   const invited = await buildPerson(lab.knex, { role: 'reviewer', status: 'invited' });
+  const crystal = await insertSample(lab.knex, other, { kind: 'crystal', material: 'WSe2' });
+  const step = await insertStep(
+    lab.knex,
+    other,
+    stepBody('exfoliation', { inputs: [{ code: crystal.code }], outputs: [{ kind: 'chip', count: 2 }] }),
+  );
   return {
     get: (path) => agent.get(path),
     post: (path, body) => {
@@ -92,10 +116,13 @@ async function sceneFor(caller: Caller): Promise<Scene> {
       return body ? test.send(body) : test;
     },
     patch: (path, body) => agent.patch(path).set('x-csrf-token', csrfToken).send(body),
+    postCsv: (path, csv) => agent.post(path).set('x-csrf-token', csrfToken).set('content-type', 'text/csv').send(csv),
     other,
     invited,
     invitationToken: await issueToken(invited.id, 'invitation'),
     resetToken: await issueToken(other.id, 'password_reset'),
+    sample: { code: crystal.code, version: crystal.version },
+    stepId: step.id,
   };
 }
 
