@@ -20,6 +20,8 @@ import { mailSinkRoutes } from './routes/mail-sink/mail-sink-routes';
 import { sampleCsvRoutes } from './routes/samples/sample-csv-routes';
 import { sampleRoutes } from './routes/samples/sample-routes';
 import { stepRoutes } from './routes/steps/step-routes';
+import { storageRoutes } from './routes/storage/storage-routes';
+import { labelRoutes } from './routes/labels/label-routes';
 import { systemRoutes } from './routes/system/system-routes';
 import { userRoutes } from './routes/users/user-routes';
 
@@ -33,6 +35,8 @@ export function apiRouteSpecs(context: AppContext): AnyRouteSpec[] {
     ...sampleCsvRoutes(context),
     ...sampleRoutes(context),
     ...stepRoutes(context),
+    ...storageRoutes(context),
+    ...labelRoutes(context),
   ];
   let document: unknown;
   const system = systemRoutes(context, () => (document ??= buildOpenApiDocument(all, context.config.publicBaseUrl)));

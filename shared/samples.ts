@@ -20,6 +20,9 @@ export const SAMPLE_CODE_PREFIXES: Record<SampleKind, string> = {
   device: 'DV',
 };
 
+/** Prefix of the codes on sample boxes (their own QR labels). */
+export const BOX_CODE_PREFIX = 'BX';
+
 /**
  * Where a sample is in its life. ready: on the shelf, usable; in_process: being worked on now;
  * used_up: consumed by a step; missing: cannot be found; discarded: thrown away on purpose;

@@ -37,7 +37,7 @@ export interface RouteSpec<B = undefined, Q = undefined, P = undefined, R = unkn
   /** Media type of the body when it is not JSON (e.g. a CSV upload). */
   bodyType?: 'text/csv';
   /** Media type of a successful answer the handler streams itself (e.g. a CSV export). */
-  producesType?: 'text/csv';
+  producesType?: 'text/csv' | 'application/pdf';
   /** Shape of a successful answer; the handler's result is checked against it. */
   response?: z.ZodType<R>;
   /** Status of a successful answer: 200 by default, 204 when there is no response schema. */

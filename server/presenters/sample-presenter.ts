@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import type { Sample, SampleListRow, SampleSummary } from '../../shared/schemas/sample';
 import type { SampleModel } from '../models/sample-model';
 import { UserModel } from '../models/user-model';
+import { locationOf } from '../services/storage';
 
 type SummaryFields = Pick<SampleModel, 'code' | 'kind' | 'material' | 'name' | 'status' | 'layerEstimate'>;
 
@@ -66,5 +67,6 @@ export async function presentSample(knex: Knex, sample: SampleModel): Promise<Sa
       : null,
     parents: parents.map(presentSampleSummary),
     children: children.map(presentSampleSummary),
+    location: await locationOf(knex, sample.id),
   };
 }

@@ -21,6 +21,7 @@ export const ERROR_CODES = [
   'lineage_cycle',
   'stale_version',
   'sample_unavailable',
+  'slot_taken',
   'too_many_attempts',
   'database_unavailable',
   'mail_unavailable',

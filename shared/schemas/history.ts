@@ -8,6 +8,7 @@ export const HISTORY_EVENT_TYPES = [
   'sample.used',
   'sample.treated',
   'sample.linked',
+  'sample.moved',
   'step.logged',
   'samples.imported',
 ] as const;

@@ -92,6 +92,12 @@ export const SampleSummary = z
   .meta({ id: 'SampleSummary' });
 export type SampleSummary = z.infer<typeof SampleSummary>;
 
+/** Where a sample sits: a box (with its own code) and a slot such as B3. */
+export const SampleLocation = z
+  .object({ boxCode: z.string(), boxName: z.string(), slot: z.string(), placePath: z.string().nullable() })
+  .meta({ id: 'SampleLocation' });
+export type SampleLocation = z.infer<typeof SampleLocation>;
+
 export const Sample = SampleSummary.extend({
   note: z.string().nullable(),
   owner: PersonRef,
@@ -103,6 +109,7 @@ export const Sample = SampleSummary.extend({
   madeBy: z.object({ stepId: z.number(), type: z.string(), startedAt: z.iso.datetime().nullable() }).nullable(),
   parents: z.array(SampleSummary),
   children: z.array(SampleSummary),
+  location: SampleLocation.nullable(),
 }).meta({ id: 'Sample' });
 export type Sample = z.infer<typeof Sample>;
 

@@ -87,13 +87,29 @@ afterAll(async () => {
   adminKnex = undefined;
 });
 
-const APP_TABLES = ['history_events', 'lineage_links', 'step_samples', 'steps', 'samples', 'link_tokens', 'session', 'users'];
+const APP_TABLES = [
+  'history_events',
+  'sample_locations',
+  'boxes',
+  'storage_places',
+  'lineage_links',
+  'step_samples',
+  'steps',
+  'samples',
+  'link_tokens',
+  'session',
+  'users',
+];
 
 /** Empties every table the app writes, between tests. */
 export async function resetDatabase(): Promise<void> {
   await testAdminKnex().transaction(async (trx) => {
     await trx.raw('set local session_replication_role = replica');
-    await trx.raw(`truncate table ${APP_TABLES.join(', ')} restart identity cascade`);
+    // Built-in label templates come with the schema: kept; those added by tests go.
+    const builtInTemplates = await trx('label_templates').where('built_in', true);
+    await trx.raw(`truncate table ${APP_TABLES.join(', ')}, label_templates restart identity cascade`);
     await trx.raw('alter sequence history_events_id_seq restart');
+    await trx('label_templates').insert(builtInTemplates);
+    await trx.raw("select setval('label_templates_id_seq', (select max(id) from label_templates))");
   });
 }
