@@ -14,6 +14,31 @@ export const mailKeys = {
   outbox: () => [...mailKeys.all, 'outbox'] as const,
 };
 
+export interface SampleListKeyFilters {
+  kind: readonly string[];
+  status: readonly string[];
+  material: string;
+  ownerId: number | null;
+  q: string;
+  sort: string;
+  order: 'asc' | 'desc';
+}
+
+export const sampleKeys = {
+  all: ['samples'] as const,
+  lists: () => [...sampleKeys.all, 'list'] as const,
+  list: (filters: SampleListKeyFilters) => [...sampleKeys.lists(), filters] as const,
+  search: (text: string) => [...sampleKeys.all, 'search', text] as const,
+  detail: (code: string) => [...sampleKeys.all, 'detail', code] as const,
+  lineage: (code: string, direction: 'ancestors' | 'descendants') => [...sampleKeys.all, direction, code] as const,
+  history: (code: string) => [...sampleKeys.all, 'history', code] as const,
+};
+
+export const stepKeys = {
+  all: ['steps'] as const,
+  detail: (id: number) => [...stepKeys.all, 'detail', id] as const,
+};
+
 export const linkKeys = {
   all: ['links'] as const,
   invitation: (token: string) => [...linkKeys.all, 'invitation', token] as const,
@@ -29,4 +54,8 @@ export const STALE_TIMES = {
   users: 30_000,
   outbox: 5_000,
   invitationPreview: 60_000,
+  /** Colleagues register and use samples all day; a short window keeps the bench view current. */
+  samples: 15_000,
+  /** A logged step never changes; its samples' statuses may, so it is refetched now and then. */
+  step: 60_000,
 } as const;

@@ -1,7 +1,6 @@
 import { Redirect } from 'expo-router';
-import { LAB_HOME } from '@/hooks/use-next-path';
 
-/** The lab area has no home screen of its own yet; the account screen is where everyone can go. */
+/** The lab area opens on the sample list: finding a sample is what people come for. */
 export default function LabIndex() {
-  return <Redirect href={LAB_HOME} />;
+  return <Redirect href="/samples" />;
 }

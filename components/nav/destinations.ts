@@ -18,6 +18,7 @@ export interface Destination {
  * entry here; the bottom bar, rail and side column all read this list.
  */
 export const DESTINATIONS: readonly Destination[] = [
+  { key: 'samples', label: 'Samples', href: '/samples', icon: 'layers-outline', activeIcon: 'layers', roles: ROLES },
   {
     key: 'people',
     label: 'People',

@@ -70,7 +70,8 @@ function drawLabel(doc: PDFKit.PDFDocument, template: LabelTemplate, content: La
   y += codeSize * 1.15;
   doc.font('sans');
   // One size for all human lines, small enough for the longest.
-  const lineSize = Math.min(...content.lines.map((line) => fitFontSize(doc, line, textWidth, Math.min(8, codeSize * 0.8))));
+  const largest = Math.min(8, codeSize * 0.8);
+  const lineSize = Math.min(largest, ...content.lines.map((line) => fitFontSize(doc, line, textWidth, largest)));
   for (const line of content.lines) {
     if (y + lineSize > top + height - padding / 2) break;
     doc.fontSize(lineSize).text(line, textLeft, y, { width: textWidth, lineBreak: false });
