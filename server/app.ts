@@ -60,6 +60,8 @@ export function createApp(deps: { config: ServerConfig; knex: Knex; mailer: Mail
       contentSecurityPolicy: {
         directives: {
           defaultSrc: ["'self'"],
+          // The web QR scanner compiles its WebAssembly decoder (served from our origin).
+          scriptSrc: ["'self'", "'wasm-unsafe-eval'"],
           baseUri: ["'self'"],
           frameAncestors: ["'none'"],
           // react-native-web writes its styles at run time.

@@ -1,13 +1,22 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import express, { type Router } from 'express';
+import { REPO_ROOT } from '../config';
 
 /**
  * Serves the exported web app. Client routes (e.g. /s/<code>, /account) get index.html and the
  * app's router takes over; hashed bundles are cached for a year, index.html never.
  */
+/** Where the app's web scanner loads its QR decoder from: our own origin, never a CDN. */
+export const ZXING_WASM_PATH = '/vendor/zxing_reader.wasm';
+const ZXING_WASM_FILE = path.join(REPO_ROOT, 'node_modules', 'zxing-wasm', 'dist', 'reader', 'zxing_reader.wasm');
+
 export function webAppRouter(distDir: string): Router {
   const router = express.Router();
+  router.get(ZXING_WASM_PATH, (_req, res) => {
+    res.setHeader('Cache-Control', 'public, max-age=86400');
+    res.type('application/wasm').sendFile(ZXING_WASM_FILE);
+  });
   const indexFile = path.join(distDir, 'index.html');
   router.use(
     express.static(distDir, {
