@@ -45,6 +45,7 @@ const FALLBACK_MESSAGES: Record<ApiErrorCode, string> = {
   lineage_cycle: 'That would make a sample its own ancestor.',
   stale_version: 'Someone changed this record after you opened it. Look at their change, then try again.',
   sample_unavailable: 'That sample cannot be used right now; it may be retired or used up.',
+  slot_taken: 'That slot already holds a sample. Choose a free slot.',
   too_many_attempts: 'Too many attempts. Wait a few minutes and try again.',
   database_unavailable: 'The Flakeline database is not available right now. Try again in a minute.',
   mail_unavailable: 'The mail server could not be reached, so no e-mail was sent.',

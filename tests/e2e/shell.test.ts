@@ -14,9 +14,9 @@ async function signIn(page: Page, email: string) {
 
 /** The destinations the navigation offers, by their testIDs (`nav-<key>`). */
 async function navKeys(page: Page): Promise<string[]> {
-  const ids = await page.locator('[data-testid^="nav-"][href]').evaluateAll((links) =>
-    links.map((link) => link.getAttribute('data-testid') ?? ''),
-  );
+  const ids = await page
+    .locator('[data-testid^="nav-"][href]')
+    .evaluateAll((links) => links.map((link) => link.getAttribute('data-testid') ?? ''));
   return [...new Set(ids)].map((id) => id.replace(/^nav-/, ''));
 }
 

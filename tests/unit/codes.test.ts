@@ -1,4 +1,12 @@
-import { BASE32_SYMBOLS, CHECK_SYMBOLS, checkSymbol, decodeBase32, encodeBase32, formatCode, parseCode } from '../../shared/codes';
+import {
+  BASE32_SYMBOLS,
+  CHECK_SYMBOLS,
+  checkSymbol,
+  decodeBase32,
+  encodeBase32,
+  formatCode,
+  parseCode,
+} from '../../shared/codes';
 
 const PREFIXES = ['CH', 'CR', 'FK', 'BX'];
 
