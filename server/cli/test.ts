@@ -56,7 +56,9 @@ function typecheck(): boolean {
 async function main() {
   const secrets = loadLocalSecrets();
   ensureClusterRunning(secrets.superuserPassword);
-  const [apiUrls, e2eUrls] = await Promise.all([freshDatabase(API_DATABASE, secrets), freshDatabase(E2E_DATABASE, secrets)]);
+  // One after the other: both (re)set the same roles, which PostgreSQL will not do concurrently.
+  const apiUrls = await freshDatabase(API_DATABASE, secrets);
+  const e2eUrls = await freshDatabase(E2E_DATABASE, secrets);
   buildWebAppIfChanged();
   ensureChromium();
   const typesOk = typecheck();
