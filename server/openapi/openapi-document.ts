@@ -19,6 +19,10 @@ const STATUS_TEXT: Record<number, string> = {
 
 const refTo = (id: string) => ({ $ref: `#/components/schemas/${id}` });
 
+/**
+ * A route's schema: a reference when it is registered with an id. Unregistered schemas are
+ * inlined, so they must not nest registered ones (give such an envelope an id of its own).
+ */
 function schemaFor(schema: z.ZodType, io: 'input' | 'output'): JsonSchema {
   const id = z.globalRegistry.get(schema)?.id;
   if (id) return refTo(id);

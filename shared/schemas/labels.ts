@@ -31,6 +31,7 @@ export const LabelTemplate = z
 export type LabelTemplate = z.infer<typeof LabelTemplate>;
 
 export const LabelTemplateList = z.object({ templates: z.array(LabelTemplate) }).meta({ id: 'LabelTemplateList' });
+export const LabelTemplateEnvelope = z.object({ template: LabelTemplate }).meta({ id: 'LabelTemplateEnvelope' });
 
 export const LabelTemplateCreateInput = z
   .object({

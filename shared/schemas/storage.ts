@@ -33,6 +33,7 @@ export const StoragePlace = z
 export type StoragePlace = z.infer<typeof StoragePlace>;
 
 export const StoragePlaceList = z.object({ places: z.array(StoragePlace) }).meta({ id: 'StoragePlaceList' });
+export const StoragePlaceEnvelope = z.object({ place: StoragePlace }).meta({ id: 'StoragePlaceEnvelope' });
 
 export const StoragePlaceCreateInput = z
   .object({

@@ -1,5 +1,10 @@
-import { z } from 'zod';
-import { LabelSheetQuery, LabelTemplate, LabelTemplateCreateInput, LabelTemplateList } from '../../../shared/schemas/labels';
+import {
+  LabelSheetQuery,
+  LabelTemplateCreateInput,
+  LabelTemplateEnvelope,
+  LabelTemplateList,
+  type LabelTemplate,
+} from '../../../shared/schemas/labels';
 import { SAMPLE_KIND_LABELS } from '../../../shared/samples';
 import type { AppContext } from '../../app-context';
 import { invalid, notFound } from '../../errors';
@@ -81,7 +86,7 @@ export function labelRoutes(context: AppContext): AnyRouteSpec[] {
       summary: "Add a label sheet (lab managers); refused when the labels don't fit the page",
       access: ['manager'],
       body: LabelTemplateCreateInput,
-      response: z.object({ template: LabelTemplate }),
+      response: LabelTemplateEnvelope,
       successStatus: 201,
       errors: [409],
       handler: async ({ user, body }) => ({

@@ -7,11 +7,10 @@ import {
   BoxList,
   MoveSampleInput,
   SampleLocationEnvelope,
-  StoragePlace,
   StoragePlaceCreateInput,
+  StoragePlaceEnvelope,
   StoragePlaceList,
 } from '../../../shared/schemas/storage';
-import { z } from 'zod';
 import type { AppContext } from '../../app-context';
 import { route, type AnyRouteSpec } from '../../http/route';
 import { findSampleByCode } from '../../services/sample-lookup';
@@ -47,7 +46,7 @@ export function storageRoutes(context: AppContext): AnyRouteSpec[] {
       summary: 'Add a storage place (lab managers)',
       access: ['manager'],
       body: StoragePlaceCreateInput,
-      response: z.object({ place: StoragePlace }),
+      response: StoragePlaceEnvelope,
       successStatus: 201,
       errors: [409],
       handler: async ({ body }) => {
