@@ -7,7 +7,8 @@ import { UserModel } from '../models/user-model';
 
 /** Creates an account directly (demo data, tests, first manager). Invitations go through `invite`. */
 export async function createPerson(props: {
-  trx?: Knex.Transaction;
+  /** A transaction, or the knex to use outside one. */
+  trx?: Knex;
   email: string;
   displayName: string;
   role: Role;

@@ -2,7 +2,6 @@ import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import { parse } from 'csv-parse/sync';
 import { stringify } from 'csv-stringify';
-import { EDITABLE_STATUSES } from '../../shared/samples';
 import { SampleCreateInput, type SampleProperties } from '../../shared/schemas/sample';
 import {
   IMPORT_IGNORED_COLUMNS,

@@ -20,7 +20,7 @@ export async function buildPerson(
   testPasswordHash ??= hashPassword(TEST_PASSWORD);
   const status = overrides.status ?? 'active';
   return createPerson({
-    trx: undefined,
+    trx: knex,
     email: overrides.email ?? `person${sequence}@lab.flakeline.test`,
     displayName: overrides.displayName ?? `Test Person ${sequence}`,
     role: overrides.role ?? 'researcher',
