@@ -42,11 +42,27 @@ function drawQr(doc: PDFKit.PDFDocument, text: string, x: number, y: number, sid
   doc.fill('#000000');
 }
 
-/** Largest font size (pt) at which `text` fits `width` points, capped at `max`. */
+/** Text smaller than this is not printed legibly by label printers (common practice, no source). */
+const MIN_FONT_PT = 3;
+
+/** Largest font size (pt) at which `text` fits `width` points, capped at `max`; 1 % spare for rounding. */
 function fitFontSize(doc: PDFKit.PDFDocument, text: string, width: number, max: number): number {
   doc.fontSize(max);
   const natural = doc.widthOfString(text);
-  return natural <= width ? max : Math.max(3, (max * width) / natural);
+  return natural <= width * 0.99 ? max : Math.max(MIN_FONT_PT, (max * width * 0.99) / natural);
+}
+
+/**
+ * One line that never wraps onto the next: PDFKit wraps whenever a width is given, so the width
+ * is given only when the text cannot fit even at the smallest size, and then it is cut with "…".
+ */
+function drawLine(doc: PDFKit.PDFDocument, text: string, x: number, y: number, width: number, size: number) {
+  doc.fontSize(size);
+  if (doc.widthOfString(text) <= width) {
+    doc.text(text, x, y, { lineBreak: false });
+  } else {
+    doc.text(text, x, y, { width, height: size * 1.2, ellipsis: true });
+  }
 }
 
 function drawLabel(doc: PDFKit.PDFDocument, template: LabelTemplate, content: LabelContent, left: number, top: number) {
@@ -66,7 +82,7 @@ function drawLabel(doc: PDFKit.PDFDocument, template: LabelTemplate, content: La
   let y = top + padding;
   doc.font('mono').fillColor('#000000');
   const codeSize = fitFontSize(doc, content.code, textWidth, Math.min(11, height / 3));
-  doc.fontSize(codeSize).text(content.code, textLeft, y, { width: textWidth, lineBreak: false });
+  drawLine(doc, content.code, textLeft, y, textWidth, codeSize);
   y += codeSize * 1.15;
   doc.font('sans');
   // One size for all human lines, small enough for the longest.
@@ -74,7 +90,7 @@ function drawLabel(doc: PDFKit.PDFDocument, template: LabelTemplate, content: La
   const lineSize = Math.min(largest, ...content.lines.map((line) => fitFontSize(doc, line, textWidth, largest)));
   for (const line of content.lines) {
     if (y + lineSize > top + height - padding / 2) break;
-    doc.fontSize(lineSize).text(line, textLeft, y, { width: textWidth, lineBreak: false });
+    drawLine(doc, line, textLeft, y, textWidth, lineSize);
     y += lineSize * 1.2;
   }
 }

@@ -3,6 +3,7 @@ import { issueLinkToken } from '../../server/services/link-tokens';
 import { buildManager, buildPerson, TEST_PASSWORD } from '../helpers/factories';
 import { crystalInput, insertSample, insertStep, stepBody } from '../helpers/sample-factories';
 import { anonymousAgent, signedInAgent } from '../helpers/session-agent';
+import { boxInput, insertBox, labelTemplateInput, putAway } from '../helpers/storage-factories';
 import { resetDatabase, startTestApp, type TestApp } from '../helpers/test-app';
 
 let lab: TestApp;
@@ -20,6 +21,8 @@ interface Scene {
   get: (path: string) => Test;
   post: (path: string, body?: object) => Test;
   patch: (path: string, body: object) => Test;
+  put: (path: string, body: object) => Test;
+  delete: (path: string) => Test;
   postCsv: (path: string, csv: string) => Test;
   /** An active researcher who is not the caller. */
   other: { id: number; email: string };
@@ -31,6 +34,9 @@ interface Scene {
   /** A ready crystal owned by `other`, and the step that exfoliated it (without using it up). */
   sample: { code: string; version: number };
   stepId: number;
+  /** A 4 × 5 box whose slot B3 holds `sample`, and a built-in label template. */
+  box: { code: string };
+  templateId: number;
 }
 
 interface AccessRow {
@@ -89,6 +95,17 @@ const ACCESS_TABLE: AccessRow[] = [
   row('POST /steps',                             401,     403,     201,      201, (s) => s.post('/api/steps', stepBody('exfoliation', { inputs: [{ code: s.sample.code }], outputs: [{ kind: 'chip', count: 2 }] }))),
   row('GET /steps/:id',                          401,     200,     200,      200, (s) => s.get(`/api/steps/${s.stepId}`)),
   row('GET /history/verify',                     401,     200,     200,      200, (s) => s.get('/api/history/verify')),
+  row('GET /places',                             401,     200,     200,      200, (s) => s.get('/api/places')),
+  row('POST /places',                            401,     403,     403,      201, (s) => s.post('/api/places', { name: 'Lab 2.14', kind: 'room' })),
+  row('GET /boxes',                              401,     200,     200,      200, (s) => s.get('/api/boxes')),
+  row('POST /boxes',                             401,     403,     403,      201, (s) => s.post('/api/boxes', boxInput())),
+  row('GET /boxes/:code',                        401,     200,     200,      200, (s) => s.get(`/api/boxes/${s.box.code}`)),
+  row('GET /samples/:code/location',             401,     200,     200,      200, (s) => s.get(`/api/samples/${s.sample.code}/location`)),
+  row('PUT /samples/:code/location',             401,     403,     200,      200, (s) => s.put(`/api/samples/${s.sample.code}/location`, { boxCode: s.box.code, slot: 'A1' })),
+  row('DELETE /samples/:code/location',          401,     403,     200,      200, (s) => s.delete(`/api/samples/${s.sample.code}/location`)),
+  row('GET /label-templates',                    401,     200,     200,      200, (s) => s.get('/api/label-templates')),
+  row('POST /label-templates',                   401,     403,     403,      201, (s) => s.post('/api/label-templates', labelTemplateInput())),
+  row('GET /labels.pdf',                         401,     200,     200,      200, (s) => s.get(`/api/labels.pdf?template=${s.templateId}&samples=${s.sample.code}`)),
 ];
 
 async function issueToken(userId: number, purpose: 'invitation' | 'password_reset'): Promise<string> {
@@ -109,6 +126,9 @@ async function sceneFor(caller: Caller): Promise<Scene> {
     other,
     stepBody('exfoliation', { inputs: [{ code: crystal.code }], outputs: [{ kind: 'chip', count: 2 }] }),
   );
+  const box = await insertBox(lab.knex);
+  await putAway(lab.knex, other, crystal.code, box.code, 'B3');
+  const template = await lab.knex('label_templates').where({ builtIn: true }).orderBy('id').first('id');
   return {
     get: (path) => agent.get(path),
     post: (path, body) => {
@@ -116,6 +136,8 @@ async function sceneFor(caller: Caller): Promise<Scene> {
       return body ? test.send(body) : test;
     },
     patch: (path, body) => agent.patch(path).set('x-csrf-token', csrfToken).send(body),
+    put: (path, body) => agent.put(path).set('x-csrf-token', csrfToken).send(body),
+    delete: (path) => agent.delete(path).set('x-csrf-token', csrfToken),
     postCsv: (path, csv) => agent.post(path).set('x-csrf-token', csrfToken).set('content-type', 'text/csv').send(csv),
     other,
     invited,
@@ -123,6 +145,8 @@ async function sceneFor(caller: Caller): Promise<Scene> {
     resetToken: await issueToken(other.id, 'password_reset'),
     sample: { code: crystal.code, version: crystal.version },
     stepId: step.id,
+    box: { code: box.code },
+    templateId: template.id,
   };
 }
 
