@@ -39,6 +39,20 @@ export const stepKeys = {
   detail: (id: number) => [...stepKeys.all, 'detail', id] as const,
 };
 
+export const storageKeys = {
+  all: ['storage'] as const,
+  places: () => [...storageKeys.all, 'places'] as const,
+  boxes: () => [...storageKeys.all, 'boxes'] as const,
+  box: (code: string) => [...storageKeys.all, 'box', code] as const,
+};
+
+export const labelKeys = {
+  all: ['labels'] as const,
+  templates: () => [...labelKeys.all, 'templates'] as const,
+  /** The codes of a filtered sample list, gathered for a sheet of labels. */
+  resultCodes: (filters: SampleListKeyFilters, limit: number) => [...labelKeys.all, 'result-codes', filters, limit] as const,
+};
+
 export const linkKeys = {
   all: ['links'] as const,
   invitation: (token: string) => [...linkKeys.all, 'invitation', token] as const,
@@ -58,4 +72,8 @@ export const STALE_TIMES = {
   samples: 15_000,
   /** A logged step never changes; its samples' statuses may, so it is refetched now and then. */
   step: 60_000,
+  /** Boxes fill and empty as people put samples away; as fresh as the sample list. */
+  storage: 15_000,
+  /** Label sheets are set up once and rarely change. */
+  labelTemplates: 5 * 60_000,
 } as const;

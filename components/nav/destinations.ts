@@ -19,6 +19,8 @@ export interface Destination {
  */
 export const DESTINATIONS: readonly Destination[] = [
   { key: 'samples', label: 'Samples', href: '/samples', icon: 'layers-outline', activeIcon: 'layers', roles: ROLES },
+  { key: 'scan', label: 'Scan', href: '/scan', icon: 'scan-outline', activeIcon: 'scan', roles: ROLES },
+  { key: 'boxes', label: 'Boxes', href: '/boxes', icon: 'grid-outline', activeIcon: 'grid', roles: ROLES },
   {
     key: 'people',
     label: 'People',

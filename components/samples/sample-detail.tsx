@@ -4,6 +4,7 @@ import { StyleSheet, View } from 'react-native';
 import { SAMPLE_KIND_LABELS } from '@/shared/samples';
 import type { Sample } from '@/shared/schemas/sample';
 import { STEP_TYPE_LABELS, STEP_TYPES } from '@/shared/steps';
+import { SampleLocationCard } from '@/components/boxes/sample-location-card';
 import { fontFaces, space } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -61,6 +62,7 @@ export function SampleDetail({ code }: { code: string }) {
   return (
     <View style={styles.stack} testID="sample-detail">
       <IdentityCard sample={record} />
+      <SampleLocationCard sample={record} />
       <PropertiesCard sample={record} />
       <OriginCard sample={record} />
       <LineageCard code={record.code} direction="ancestors" />

@@ -1,6 +1,9 @@
 import { Link, useRouter } from 'expo-router';
 import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
+import { ListPrintLabels } from '@/components/labels/list-print-labels';
+import { PrintLabelsButton } from '@/components/labels/print-labels';
+import { SelectableSamples } from '@/components/labels/selectable-samples';
 import { sizes, space } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -12,6 +15,7 @@ import { TextLink } from '@/components/ui/text-link';
 import { useDebouncedValue } from '@/components/ui/use-debounced-value';
 import { describeError } from '@/hooks/api-client';
 import { useBreakpoints } from '@/hooks/use-breakpoints';
+import { LABEL_BATCH_MAX } from '@/hooks/use-labels';
 import { useSampleListQuery } from '@/hooks/use-samples';
 import { useSessionQuery } from '@/hooks/use-session';
 import { SampleCard } from './sample-card';
@@ -58,13 +62,40 @@ function SampleList({ view, selectedCode, wide: isWide }: SamplesScreenProps & {
   const session = useSessionQuery();
   const router = useRouter();
   const canWrite = canWriteSamples(session.data);
-  const list = useSampleListQuery(filtersFor(view, session.data?.id));
+  const filters = filtersFor(view, session.data?.id);
+  const list = useSampleListQuery(filters);
+  // Choosing samples one by one for a sheet of labels; null when not choosing.
+  const [chosen, setChosen] = useState<string[] | null>(null);
 
   const setView = (next: SampleListView) => router.setParams(viewParams(next));
   const hrefFor = (code: string) => sampleHref(code, { wide: isWide, view });
+  const toggle = (code: string) =>
+    setChosen((current) =>
+      current === null
+        ? [code]
+        : current.includes(code)
+          ? current.filter((other) => other !== code)
+          : current.length < LABEL_BATCH_MAX
+            ? [...current, code]
+            : current,
+    );
 
-  const actions = canWrite ? <WriterActions /> : null;
+  const actions = (
+    <>
+      {canWrite ? <WriterActions /> : null}
+      {chosen === null ? <ListPrintLabels filters={filters} onChooseSamples={() => setChosen([])} /> : null}
+    </>
+  );
   const search = <SearchField view={view} onChange={setView} />;
+  const selection =
+    chosen === null ? null : (
+      <SelectionBar
+        chosen={chosen}
+        shown={list.data?.samples.map((sample) => sample.code) ?? []}
+        onChange={setChosen}
+        onDone={() => setChosen(null)}
+      />
+    );
   const body = (
     <ListBody
       list={list}
@@ -72,7 +103,9 @@ function SampleList({ view, selectedCode, wide: isWide }: SamplesScreenProps & {
       canWrite={canWrite}
       onClearFilters={() => setView({ ...view, kind: [], status: [], material: '', mine: false, q: '' })}
       renderRows={(samples) =>
-        isWide ? (
+        chosen !== null ? (
+          <SelectableSamples samples={samples} chosen={chosen} onToggle={toggle} />
+        ) : isWide ? (
           <SampleTable
             samples={samples}
             sort={view.sort}
@@ -99,6 +132,7 @@ function SampleList({ view, selectedCode, wide: isWide }: SamplesScreenProps & {
       <Screen title={TITLE} lead={LEAD} actions={actions} testID="samples-screen">
         {search}
         <PhoneFilters view={view} onChange={setView} withMine={session.data !== undefined} />
+        {selection}
         {body}
       </Screen>
     );
@@ -112,6 +146,7 @@ function SampleList({ view, selectedCode, wide: isWide }: SamplesScreenProps & {
         </ScrollView>
         <ScrollView style={styles.listPane} contentContainerStyle={styles.paneContent} testID="sample-list-pane">
           {search}
+          {selection}
           {body}
         </ScrollView>
         <ScrollView style={styles.detailPane} contentContainerStyle={styles.paneContent} testID="sample-detail-pane">
@@ -142,6 +177,47 @@ function WriterActions() {
         <Button title="Log a step" icon="git-merge-outline" variant="secondary" testID="log-step" />
       </Link>
     </>
+  );
+}
+
+interface SelectionBarProps {
+  chosen: string[];
+  /** The codes the list shows now, for "choose all shown". */
+  shown: string[];
+  onChange: (chosen: string[]) => void;
+  onDone: () => void;
+}
+
+/** While choosing samples for labels: how many are chosen, and printing them. */
+function SelectionBar({ chosen, shown, onChange, onDone }: SelectionBarProps) {
+  const count = chosen.length;
+  return (
+    <Notice
+      tone="info"
+      title={count ? `${count} ${count === 1 ? 'sample' : 'samples'} chosen` : 'Choose the samples to print labels for'}
+      testID="sample-selection"
+      action={
+        <>
+          <PrintLabelsButton
+            target={{ kind: 'samples', codes: chosen }}
+            what={`Labels for the ${count === 1 ? 'sample' : `${count} samples`} you chose.`}
+            title={count ? `Print ${count} ${count === 1 ? 'label' : 'labels'}` : 'Print labels'}
+            variant="primary"
+            disabled={count === 0}
+            testID="selection-print"
+          />
+          <Button
+            title="Choose all shown"
+            variant="secondary"
+            onPress={() => onChange([...new Set([...chosen, ...shown])].slice(0, LABEL_BATCH_MAX))}
+            testID="selection-all"
+          />
+          <Button title="Done" variant="quiet" onPress={onDone} testID="selection-done" />
+        </>
+      }
+    >
+      {`Tap samples in the list to choose them (up to ${LABEL_BATCH_MAX}).`}
+    </Notice>
   );
 }
 

@@ -3,6 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import type { Step } from '@/shared/schemas/step';
 import { STEP_TYPE_LABELS } from '@/shared/steps';
 import { space } from '@/components/theme';
+import { PrintLabelsButton } from '@/components/labels/print-labels';
 import { SampleChip, SampleChips } from '@/components/samples/sample-chip';
 import { canWriteSamples } from '@/components/samples/writers-only';
 import { Button } from '@/components/ui/button';
@@ -57,11 +58,28 @@ export function StepScreen({ id, justLogged }: StepScreenProps) {
   }
 
   const record = step.data;
-  const actions = canWriteSamples(session.data) ? (
-    <Link href="/steps/new" asChild>
-      <Button title="Log another step" icon="git-merge-outline" variant="secondary" testID="step-log-another" />
-    </Link>
-  ) : null;
+  const made = record.outputs.length;
+  const printOutputs = (testID: string, variant: 'primary' | 'secondary') => (
+    <PrintLabelsButton
+      target={{ kind: 'step', stepId: record.id }}
+      what={`Labels for the ${made === 1 ? 'sample' : `${made} samples`} this step made.`}
+      title={made === 1 ? 'Print its label' : `Print their ${made} labels`}
+      variant={variant}
+      testID={testID}
+    />
+  );
+  // Straight after logging, the offer to print sits in the "Step logged" notice instead.
+  const offerInNotice = justLogged && made > 0;
+  const actions = (
+    <>
+      {made > 0 && !offerInNotice ? printOutputs('step-print-labels', 'secondary') : null}
+      {canWriteSamples(session.data) ? (
+        <Link href="/steps/new" asChild>
+          <Button title="Log another step" icon="git-merge-outline" variant="secondary" testID="step-log-another" />
+        </Link>
+      ) : null}
+    </>
+  );
 
   return (
     <Screen
@@ -71,9 +89,14 @@ export function StepScreen({ id, justLogged }: StepScreenProps) {
       testID="step-screen"
     >
       {justLogged ? (
-        <Notice tone="success" title="Step logged" testID="step-logged">
-          {record.outputs.length
-            ? `${record.outputs.length} new ${record.outputs.length === 1 ? 'sample has its code' : 'samples have their codes'}. Tap one to open it, write its code on the label.`
+        <Notice
+          tone="success"
+          title="Step logged"
+          testID="step-logged"
+          action={offerInNotice ? printOutputs('step-logged-print', 'primary') : undefined}
+        >
+          {made
+            ? `${made} new ${made === 1 ? 'sample has its code' : 'samples have their codes'}. Print their labels now, or tap one to open it.`
             : 'It is now in the history of every sample it used or treated.'}
         </Notice>
       ) : null}

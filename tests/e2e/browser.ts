@@ -34,12 +34,19 @@ export interface BrowserSession {
   close: () => Promise<void>;
 }
 
-export async function openBrowser(viewport: Viewport): Promise<BrowserSession> {
+export interface BrowserOptions {
+  /** More Chromium flags, e.g. a fake camera fed from a file. */
+  extraArgs?: readonly string[];
+  /** Permissions granted to the app's origin up front, e.g. `camera`. */
+  permissions?: readonly string[];
+}
+
+export async function openBrowser(viewport: Viewport, options: BrowserOptions = {}): Promise<BrowserSession> {
   // Playwright gives every launch a fresh, throwaway profile of its own.
   const browser = await chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     headless: true,
-    args: CHROMIUM_ARGS,
+    args: [...CHROMIUM_ARGS, ...(options.extraArgs ?? [])],
   });
   const context = await browser.newContext({
     viewport,
@@ -47,6 +54,9 @@ export async function openBrowser(viewport: Viewport): Promise<BrowserSession> {
     isMobile: viewport === PHONE,
     hasTouch: viewport === PHONE,
   });
+  if (options.permissions?.length) {
+    await context.grantPermissions([...options.permissions], { origin: new URL(baseUrl()).origin });
+  }
   const page = await context.newPage();
   const offLoopbackRequests: string[] = [];
   page.on('request', (request) => {
