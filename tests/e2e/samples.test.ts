@@ -155,7 +155,7 @@ describe('samples, steps and lineage', () => {
       await page.getByTestId('sample-search').fill(code);
       await page.waitForURL(/q=CR-/);
       await page.getByTestId(`sample-row-${code}`).click();
-      await page.waitForURL(new RegExp(`code=${code}`));
+      await page.waitForURL((url) => url.searchParams.get('code') === code);
       await expect(textOf(page, 'sample-code')).resolves.toBe(code);
       await screenshot(page, 'samples-wide-list-detail');
 

@@ -207,7 +207,7 @@ describe('labels and scanning', () => {
       const decoder = watchDecoder(browser);
 
       await signInAt(page, '/scan', RESEARCHER);
-      await page.waitForURL(new RegExp(`/samples/${code}$`));
+      await page.waitForURL((url) => decodeURIComponent(url.pathname).endsWith(`/samples/${code}`));
       await page.getByTestId('sample-detail').waitFor();
       await expect(textOf(page, 'sample-code')).resolves.toBe(code);
       expect(decoder.length).toBeGreaterThan(0);
@@ -251,7 +251,7 @@ describe('labels and scanning', () => {
       page.setDefaultTimeout(20_000);
 
       await signInAt(page, '/scan', MANAGER);
-      await page.waitForURL(new RegExp(`/boxes/${box.code}$`));
+      await page.waitForURL((url) => decodeURIComponent(url.pathname).endsWith(`/boxes/${box.code}`));
       await page.getByTestId('box-grid-card').waitFor();
       await expect(textOf(page, 'box-screen')).resolves.toContain(box.placePath);
       await screenshot(page, 'boxes-wide-grid');
@@ -307,7 +307,7 @@ describe('labels and scanning', () => {
 
       // A scanned label's address, opened signed out, comes back after sign-in.
       await signInAt(page, `/s/${code}`, RESEARCHER);
-      await page.waitForURL(new RegExp(`/samples/${code}$`));
+      await page.waitForURL((url) => decodeURIComponent(url.pathname).endsWith(`/samples/${code}`));
       await expect(textOf(page, 'sample-code')).resolves.toBe(code);
 
       await page.goto(`${baseUrl()}/scan`);
@@ -327,13 +327,13 @@ describe('labels and scanning', () => {
 
       await page.getByTestId('code-entry-input').fill(` ${code.toLowerCase().replace('-', ' ')} `);
       await page.getByTestId('code-entry-submit').click();
-      await page.waitForURL(new RegExp(`/samples/${code}$`));
+      await page.waitForURL((url) => decodeURIComponent(url.pathname).endsWith(`/samples/${code}`));
 
       await page.goto(`${baseUrl()}/scan`);
       const chooser = page.waitForEvent('filechooser');
       await page.getByTestId('photo-pick').click();
       await (await chooser).setFiles(writeQrPhoto('sample-photo', `${baseUrl()}/s/${code}`));
-      await page.waitForURL(new RegExp(`/samples/${code}$`));
+      await page.waitForURL((url) => decodeURIComponent(url.pathname).endsWith(`/samples/${code}`));
 
       // The box grid on a phone: finger-sized cells, scrolling sideways when the box is wide.
       await page.goto(`${baseUrl()}/boxes/${fixtures.box.code}`);
