@@ -19,6 +19,7 @@ import { authRoutes } from './routes/auth/auth-routes';
 import { mailSinkRoutes } from './routes/mail-sink/mail-sink-routes';
 import { sampleCsvRoutes } from './routes/samples/sample-csv-routes';
 import { sampleRoutes } from './routes/samples/sample-routes';
+import { stepTemplateRoutes } from './routes/step-templates/step-template-routes';
 import { stepRoutes } from './routes/steps/step-routes';
 import { storageRoutes } from './routes/storage/storage-routes';
 import { labelRoutes } from './routes/labels/label-routes';
@@ -35,6 +36,7 @@ export function apiRouteSpecs(context: AppContext): AnyRouteSpec[] {
     ...sampleCsvRoutes(context),
     ...sampleRoutes(context),
     ...stepRoutes(context),
+    ...stepTemplateRoutes(context),
     ...storageRoutes(context),
     ...labelRoutes(context),
   ];

@@ -25,8 +25,10 @@ export const forbidden = (message = 'Your role does not allow this.') => new App
 export const csrfInvalid = () =>
   new AppError(403, 'csrf_invalid', 'The form expired or came from elsewhere. Reload and try again.');
 export const notFound = (message: string) => new AppError(404, 'not_found', message);
-export const conflict = (code: 'conflict' | 'email_taken' | 'last_manager' | 'slot_taken', message: string) =>
-  new AppError(409, code, message);
+export const conflict = (
+  code: 'conflict' | 'email_taken' | 'last_manager' | 'slot_taken' | 'idempotency_conflict',
+  message: string,
+) => new AppError(409, code, message);
 export const linkInvalid = () => new AppError(404, 'link_invalid', 'This link is not valid. Check that it was copied whole.');
 export const linkExpired = () => new AppError(410, 'link_expired', 'This link has expired. Ask for a new one.');
 export const linkUsed = () => new AppError(410, 'link_used', 'This link has already been used. Ask for a new one.');

@@ -1,5 +1,5 @@
 /** The kinds of physical thing Flakeline keeps a record of, with their code prefixes. */
-export const SAMPLE_KINDS = ['crystal', 'chip', 'flake', 'film', 'stack', 'device'] as const;
+export const SAMPLE_KINDS = ['crystal', 'chip', 'flake', 'film', 'stack', 'device', 'precursor'] as const;
 export type SampleKind = (typeof SAMPLE_KINDS)[number];
 
 export const SAMPLE_KIND_LABELS: Record<SampleKind, string> = {
@@ -9,6 +9,7 @@ export const SAMPLE_KIND_LABELS: Record<SampleKind, string> = {
   film: 'CVD film',
   stack: 'Stack',
   device: 'Device',
+  precursor: 'Precursor lot',
 };
 
 export const SAMPLE_CODE_PREFIXES: Record<SampleKind, string> = {
@@ -18,6 +19,7 @@ export const SAMPLE_CODE_PREFIXES: Record<SampleKind, string> = {
   film: 'FM',
   stack: 'SK',
   device: 'DV',
+  precursor: 'PR',
 };
 
 /** Prefix of the codes on sample boxes (their own QR labels). */

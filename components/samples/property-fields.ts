@@ -43,6 +43,7 @@ export const PROPERTY_FIELDS: Record<SampleKind, readonly PropertyField[]> = {
   film: [FIELDS.substrate],
   stack: [],
   device: [FIELDS.deviceType],
+  precursor: [FIELDS.supplier, FIELDS.supplierLot],
 };
 
 export function propertyField(name: string): PropertyField | undefined {

@@ -24,6 +24,13 @@ export function filteredSamples(knex: Knex, filters: SampleListFilters) {
   if (filters.layersMax !== undefined) query.where('s.layer_estimate', '<=', filters.layersMax);
   if (filters.createdFrom) query.where('s.created_at', '>=', filters.createdFrom);
   if (filters.createdTo) query.where('s.created_at', '<=', filters.createdTo);
+  if (filters.awaitingSearch) {
+    // A chip with a child has been searched (a flake or film was recorded from it).
+    query
+      .where('s.kind', 'chip')
+      .where('s.status', 'ready')
+      .whereNotExists((children) => children.select(knex.raw('1')).from('lineage_links as l').whereRaw('l.parent_id = s.id'));
+  }
   if (filters.q) {
     // Matches the trigram index expression in the samples migration.
     query.whereRaw("(s.code || ' ' || coalesce(s.name, '') || ' ' || coalesce(s.note, '')) ilike ?", [likePattern(filters.q)]);

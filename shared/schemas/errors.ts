@@ -22,6 +22,7 @@ export const ERROR_CODES = [
   'stale_version',
   'sample_unavailable',
   'slot_taken',
+  'idempotency_conflict',
   'too_many_attempts',
   'database_unavailable',
   'mail_unavailable',

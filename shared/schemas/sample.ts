@@ -142,6 +142,11 @@ export const SampleListQuery = z
     createdFrom: z.iso.datetime({ offset: true, error: 'Use an ISO date-time, e.g. 2026-11-01T00:00:00Z.' }).optional(),
     createdTo: z.iso.datetime({ offset: true, error: 'Use an ISO date-time, e.g. 2026-11-30T23:59:59Z.' }).optional(),
     q: z.string().trim().max(100, 'Search text has at most 100 characters.').optional(),
+    /** Ready chips nothing has been made from yet: the ones still to be searched for flakes. */
+    awaitingSearch: z
+      .enum(['true', 'false'], { error: 'awaitingSearch is true or false.' })
+      .transform((value) => value === 'true')
+      .optional(),
     sort: z.enum(SAMPLE_SORTS, { error: 'Unknown sort field.' }).default('createdAt'),
     order: z.enum(['asc', 'desc']).default('desc'),
     page: z.string().regex(/^\d+$/).transform(Number).pipe(z.number().int().min(1)).default(1),

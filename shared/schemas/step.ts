@@ -186,4 +186,55 @@ export const Step = z
   .meta({ id: 'Step' });
 export type Step = z.infer<typeof Step>;
 
-export const StepEnvelope = z.object({ step: Step }).meta({ id: 'StepEnvelope' });
+export const StepWarning = z.object({ path: z.string(), message: z.string() }).meta({ id: 'StepWarning' });
+
+/** A step, and values in it that are allowed but unusual (see shared/step-warnings.ts). */
+export const StepEnvelope = z.object({ step: Step, warnings: z.array(StepWarning) }).meta({ id: 'StepEnvelope' });
+
+/** The parameters schema of each step type (templates reuse them). */
+export const STEP_PARAMETER_SCHEMAS = {
+  exfoliation: ExfoliationParameters,
+  cvd_growth: CvdGrowthParameters,
+  transfer: TransferParameters,
+  stacking: StackingParameters,
+  lithography: LithographyParameters,
+  etching: EtchingParameters,
+  annealing: AnnealingParameters,
+  encapsulation: EncapsulationParameters,
+  metal_deposition: MetalDepositionParameters,
+  cleaving: CleavingParameters,
+} as const satisfies Record<(typeof STEP_TYPES)[number], z.ZodObject>;
+
+export const IDEMPOTENCY_KEY_MIN_LENGTH = 8;
+export const IDEMPOTENCY_KEY_MAX_LENGTH = 100;
+
+/** The optional `Idempotency-Key` header of POST /api/steps: the client's id for one submission. */
+export const IdempotencyKey = z
+  .string()
+  .min(IDEMPOTENCY_KEY_MIN_LENGTH, `An idempotency key has at least ${IDEMPOTENCY_KEY_MIN_LENGTH} characters.`)
+  .max(IDEMPOTENCY_KEY_MAX_LENGTH, `An idempotency key has at most ${IDEMPOTENCY_KEY_MAX_LENGTH} characters.`)
+  .regex(/^[A-Za-z0-9_-]+$/, 'An idempotency key uses only letters, digits, "-" and "_".');
+
+export const RECENT_STEPS_LIMIT_MAX = 50;
+
+export const StepListQuery = z
+  .object({
+    /** Only steps the caller logged or ran. */
+    mine: z
+      .enum(['true', 'false'], { error: 'mine is true or false.' })
+      .transform((value) => value === 'true')
+      .optional(),
+    type: z.enum(STEP_TYPES, { error: 'Unknown step type.' }).optional(),
+    limit: z
+      .string()
+      .regex(/^\d+$/, 'limit is a whole number.')
+      .transform(Number)
+      .pipe(z.number().int().min(1).max(RECENT_STEPS_LIMIT_MAX, `At most ${RECENT_STEPS_LIMIT_MAX} steps at once.`))
+      .default(10),
+  })
+  .meta({ id: 'StepListQuery' });
+export type StepListQuery = z.input<typeof StepListQuery>;
+export type StepListFilters = z.output<typeof StepListQuery>;
+
+export const StepList = z.object({ steps: z.array(Step) }).meta({ id: 'StepList' });
+export type StepList = z.infer<typeof StepList>;

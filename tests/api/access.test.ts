@@ -1,7 +1,7 @@
 import type { Test } from 'supertest';
 import { issueLinkToken } from '../../server/services/link-tokens';
 import { buildManager, buildPerson, TEST_PASSWORD } from '../helpers/factories';
-import { crystalInput, insertSample, insertStep, stepBody } from '../helpers/sample-factories';
+import { crystalInput, insertSample, insertStep, STEP_PARAMETERS, stepBody } from '../helpers/sample-factories';
 import { anonymousAgent, signedInAgent } from '../helpers/session-agent';
 import { boxInput, insertBox, labelTemplateInput, putAway } from '../helpers/storage-factories';
 import { resetDatabase, startTestApp, type TestApp } from '../helpers/test-app';
@@ -37,6 +37,8 @@ interface Scene {
   /** A 4 × 5 box whose slot B3 holds `sample`, and a built-in label template. */
   box: { code: string };
   templateId: number;
+  /** A step template owned by the caller (by `other` when the caller is anonymous). */
+  stepTemplateId: number;
 }
 
 interface AccessRow {
@@ -93,6 +95,10 @@ const ACCESS_TABLE: AccessRow[] = [
   row('GET /samples.csv',                        401,     200,     200,      200, (s) => s.get('/api/samples.csv?kind=crystal')),
   row('POST /samples/imports',                   401,     403,     200,      200, (s) => s.postCsv('/api/samples/imports?mode=preview', 'kind,material\ncrystal,MoS2\n')),
   row('POST /steps',                             401,     403,     201,      201, (s) => s.post('/api/steps', stepBody('exfoliation', { inputs: [{ code: s.sample.code }], outputs: [{ kind: 'chip', count: 2 }] }))),
+  row('GET /steps',                              401,     200,     200,      200, (s) => s.get('/api/steps?mine=true&type=exfoliation&limit=10')),
+  row('GET /step-templates',                     401,     200,     200,      200, (s) => s.get('/api/step-templates')),
+  row('POST /step-templates',                    401,     403,     201,      201, (s) => s.post('/api/step-templates', { name: 'Usual peel', type: 'exfoliation', body: { parameters: STEP_PARAMETERS.exfoliation } })),
+  row('DELETE /step-templates/:id',              401,     403,     204,      204, (s) => s.delete(`/api/step-templates/${s.stepTemplateId}`)),
   row('GET /steps/:id',                          401,     200,     200,      200, (s) => s.get(`/api/steps/${s.stepId}`)),
   row('GET /history/verify',                     401,     200,     200,      200, (s) => s.get('/api/history/verify')),
   row('GET /places',                             401,     200,     200,      200, (s) => s.get('/api/places')),
@@ -113,12 +119,15 @@ async function issueToken(userId: number, purpose: 'invitation' | 'password_rese
 }
 
 async function sceneFor(caller: Caller): Promise<Scene> {
-  const session =
-    caller === 'anonymous'
-      ? await anonymousAgent(lab.app)
-      : await signedInAgent(lab.app, (await buildPerson(lab.knex, { role: caller })).email);
+  const me = caller === 'anonymous' ? undefined : await buildPerson(lab.knex, { role: caller });
+  const session = me ? await signedInAgent(lab.app, me.email) : await anonymousAgent(lab.app);
   const { agent, csrfToken } = session;
   const other = await buildPerson(lab.knex, { role: 'researcher' });
+  // Written directly: a reviewer cannot save one through the API, yet must be refused deleting it.
+  const [stepTemplate] = await lab
+    .knex('step_templates')
+    .insert({ userId: (me ?? other).id, name: 'Usual growth', type: 'cvd_growth', body: { parameters: {} } })
+    .returning('id');
   const invited = await buildPerson(lab.knex, { role: 'reviewer', status: 'invited' });
   const crystal = await insertSample(lab.knex, other, { kind: 'crystal', material: 'WSe2' });
   const step = await insertStep(
@@ -147,6 +156,7 @@ async function sceneFor(caller: Caller): Promise<Scene> {
     stepId: step.id,
     box: { code: box.code },
     templateId: template.id,
+    stepTemplateId: stepTemplate.id,
   };
 }
 

@@ -661,3 +661,34 @@ describe('GET /api/steps/:id', () => {
     });
   });
 });
+
+describe('POST /api/steps: CVD growth from precursor lots', () => {
+  it('201 with the precursor lots as inputs, still ready, and the film descended from them', async () => {
+    const { person, agent, csrfToken } = await signedIn();
+    const created = await agent
+      .post('/api/samples')
+      .set('x-csrf-token', csrfToken)
+      .send({ kind: 'precursor', material: 'MoO3', name: 'MoO3 powder, 99.97 %', properties: { supplierLot: 'L-2291' } });
+    expect(created.status).toBe(201);
+    const moo3 = created.body.sample as Sample;
+    expect(moo3.code).toMatch(/^PR-/);
+    const sulfur = await insertSample(lab.knex, person, { kind: 'precursor', material: 'S' });
+
+    const step = await logStep(
+      agent,
+      csrfToken,
+      stepBody('cvd_growth', {
+        inputs: [{ code: moo3.code }, { code: sulfur.code }],
+        outputs: [{ kind: 'film', material: 'MoS2' }],
+      }),
+    );
+    expect(codes(step.inputs)).toEqual([moo3.code, sulfur.code]);
+    expect(step.inputs.map((input) => input.consumed)).toEqual([false, false]);
+    expect(await sampleRow(moo3.code)).toMatchObject({ status: 'ready' });
+    const ancestors = await agent.get(`/api/samples/${step.outputs[0].code}/ancestors`);
+    expect(ancestors.status).toBe(200);
+    expect(ancestors.body.relatives.map((relative: { code: string }) => relative.code).sort()).toEqual(
+      [moo3.code, sulfur.code].sort(),
+    );
+  });
+});

@@ -88,6 +88,8 @@ afterAll(async () => {
 });
 
 const APP_TABLES = [
+  'step_submissions',
+  'step_templates',
   'history_events',
   'sample_locations',
   'boxes',
