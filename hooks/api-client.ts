@@ -46,6 +46,7 @@ const FALLBACK_MESSAGES: Record<ApiErrorCode, string> = {
   stale_version: 'Someone changed this record after you opened it. Look at their change, then try again.',
   sample_unavailable: 'That sample cannot be used right now; it may be retired or used up.',
   slot_taken: 'That slot already holds a sample. Choose a free slot.',
+  idempotency_conflict: 'This submission was already sent with different details. Start a new entry instead of resending.',
   too_many_attempts: 'Too many attempts. Wait a few minutes and try again.',
   database_unavailable: 'The Flakeline database is not available right now. Try again in a minute.',
   mail_unavailable: 'The mail server could not be reached, so no e-mail was sent.',
@@ -73,6 +74,8 @@ export interface ApiRequest {
   method?: Method;
   body?: unknown;
   signal?: AbortSignal;
+  /** Extra request headers, e.g. `Idempotency-Key` on a step that may be sent again. */
+  headers?: Readonly<Record<string, string>>;
 }
 
 let csrfToken: string | null = null;
@@ -95,7 +98,7 @@ async function loadCsrfToken(): Promise<string> {
   if (csrfToken) return csrfToken;
   if (!csrfRequest) {
     const generation = csrfGeneration;
-    csrfRequest = send('/api/auth/csrf', 'GET', undefined, undefined, undefined)
+    csrfRequest = send('/api/auth/csrf', 'GET', undefined, undefined, undefined, undefined)
       .then((response) => readBody(response, CsrfToken))
       .then(({ csrfToken: token }) => {
         if (generation === csrfGeneration) csrfToken = token;
@@ -114,8 +117,9 @@ async function send(
   body: unknown,
   token: string | undefined,
   signal: AbortSignal | undefined,
+  extraHeaders: Readonly<Record<string, string>> | undefined,
 ): Promise<Response> {
-  const headers: Record<string, string> = { Accept: 'application/json' };
+  const headers: Record<string, string> = { ...extraHeaders, Accept: 'application/json' };
   if (body !== undefined) headers['Content-Type'] = 'application/json';
   if (token) headers['x-csrf-token'] = token;
   let response: Response;
@@ -175,16 +179,16 @@ async function readBody<S extends z.ZodType>(response: Response, schema: S): Pro
 export function apiFetch<S extends z.ZodType>(path: string, options: ApiRequest & { schema: S }): Promise<z.output<S>>;
 export function apiFetch(path: string, options?: ApiRequest): Promise<void>;
 export async function apiFetch(path: string, options: ApiRequest & { schema?: z.ZodType } = {}): Promise<unknown> {
-  const { method = 'GET', body, signal, schema } = options;
+  const { method = 'GET', body, signal, schema, headers } = options;
   const mutating = method !== 'GET';
 
   let response: Response;
   try {
-    response = await send(path, method, body, mutating ? await loadCsrfToken() : undefined, signal);
+    response = await send(path, method, body, mutating ? await loadCsrfToken() : undefined, signal, headers);
   } catch (error) {
     if (!(mutating && isApiError(error, 'csrf_invalid'))) throw error;
     forgetCsrfToken();
-    response = await send(path, method, body, await loadCsrfToken(), signal);
+    response = await send(path, method, body, await loadCsrfToken(), signal, headers);
   }
 
   if (!schema) return undefined;
