@@ -32,11 +32,18 @@ export const sampleKeys = {
   detail: (code: string) => [...sampleKeys.all, 'detail', code] as const,
   lineage: (code: string, direction: 'ancestors' | 'descendants') => [...sampleKeys.all, direction, code] as const,
   history: (code: string) => [...sampleKeys.all, 'history', code] as const,
+  /** Chips no one has searched for flakes yet (the bench's to-do list). */
+  awaitingSearch: () => [...sampleKeys.all, 'awaiting-search'] as const,
+  /** Samples of one kind matching typed text, e.g. precursor lots for a growth run. */
+  kindSearch: (kind: string, text: string) => [...sampleKeys.all, 'kind-search', kind, text] as const,
 };
 
 export const stepKeys = {
   all: ['steps'] as const,
   detail: (id: number) => [...stepKeys.all, 'detail', id] as const,
+  /** The signed-in person's own recent steps, optionally of one type. */
+  mine: (type: string | null, limit: number) => [...stepKeys.all, 'mine', type ?? 'any', limit] as const,
+  templates: () => [...stepKeys.all, 'templates'] as const,
 };
 
 export const storageKeys = {
@@ -76,4 +83,6 @@ export const STALE_TIMES = {
   storage: 15_000,
   /** Label sheets are set up once and rarely change. */
   labelTemplates: 5 * 60_000,
+  /** Saved step templates change only when their owner saves one. */
+  stepTemplates: 60_000,
 } as const;

@@ -1,6 +1,6 @@
 import { useGlobalSearchParams, useLocalSearchParams, usePathname } from 'expo-router';
 
-export const LAB_HOME = '/samples';
+export const LAB_HOME = '/bench';
 
 /**
  * Where to go after signing in. Only same-site paths are honoured ("/..." but not "//host" or

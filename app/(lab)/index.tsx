@@ -1,6 +1,6 @@
 import { Redirect } from 'expo-router';
 
-/** The lab area opens on the sample list: finding a sample is what people come for. */
+/** The lab area opens on the bench: logging a run as it happens is what people come for. */
 export default function LabIndex() {
-  return <Redirect href="/samples" />;
+  return <Redirect href="/bench" />;
 }

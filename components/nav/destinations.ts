@@ -18,6 +18,7 @@ export interface Destination {
  * entry here; the bottom bar, rail and side column all read this list.
  */
 export const DESTINATIONS: readonly Destination[] = [
+  { key: 'bench', label: 'Bench', href: '/bench', icon: 'flask-outline', activeIcon: 'flask', roles: ROLES },
   { key: 'samples', label: 'Samples', href: '/samples', icon: 'layers-outline', activeIcon: 'layers', roles: ROLES },
   { key: 'scan', label: 'Scan', href: '/scan', icon: 'scan-outline', activeIcon: 'scan', roles: ROLES },
   { key: 'boxes', label: 'Boxes', href: '/boxes', icon: 'grid-outline', activeIcon: 'grid', roles: ROLES },
