@@ -1,6 +1,8 @@
 import type { Knex } from 'knex';
 import { hashPassword } from '../server/auth/passwords';
+import type { UserModel } from '../server/models/user-model';
 import { createPerson } from '../server/services/people';
+import { seedDemoSamples } from './demo-samples';
 
 /**
  * The demo lab: an invented low-dimensional materials group. Every name here is made up.
@@ -18,19 +20,20 @@ export const DEMO_PEOPLE = [
 export async function seedDemoLab(knex: Knex): Promise<void> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   await knex.transaction(async (trx) => {
-    let manager: number | null = null;
+    const people: UserModel[] = [];
     for (const person of DEMO_PEOPLE) {
-      const created = await createPerson({ trx, ...person, passwordHash, invitedById: manager });
-      manager ??= created.id;
+      people.push(await createPerson({ trx, ...person, passwordHash, invitedById: people[0]?.id ?? null }));
     }
+    const [manager, researcher] = people;
     // Someone invited who has not chosen a password yet, so the People screen shows that state.
     await createPerson({
       trx,
       email: 'noor.halvorsen@demo.flakeline.test',
       displayName: 'Noor Halvorsen',
       role: 'researcher',
-      invitedById: manager,
+      invitedById: manager.id,
     });
+    await seedDemoSamples(trx, { manager, researcher });
   });
 }
 

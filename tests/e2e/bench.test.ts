@@ -76,7 +76,7 @@ describe('the bench at phone size', () => {
       await page.getByTestId('quick-exfoliation-screen').waitFor();
       await pickCrystal(page, crystal);
       await page.getByTestId('exf-method-adhesive_tape').click();
-      await page.getByTestId('exf-tape').fill('Nitto SPV 224');
+      await page.getByTestId('exf-tape').fill('Low-tack blue tape');
       await page.getByTestId('exf-peels-plus').click();
       await page.getByTestId('exf-substrate-si_sio2').click();
       await page.getByTestId('exf-oxide-285').click();
