@@ -31,7 +31,8 @@ import {
   type ExfoliationValues,
 } from './exfoliation-values';
 import { KindPicker } from './kind-picker';
-import { RunLogged, WarningsNotice } from './run-logged';
+import { WarningsNotice } from '@/components/steps/warnings-notice';
+import { RunLogged } from './run-logged';
 import { Stepper } from './stepper';
 import { TemplatesCard } from './templates-card';
 

@@ -19,7 +19,8 @@ import { useSessionQuery } from '@/hooks/use-session';
 import { newIdempotencyKey, useOutboxItem, useStepOutbox, type StepWarning } from '@/hooks/use-step-outbox';
 import { EMPTY_GROWTH, growthFromBody, parseGrowth, type GrowthValues } from './growth-values';
 import { KindPicker } from './kind-picker';
-import { RunLogged, WarningsNotice } from './run-logged';
+import { WarningsNotice } from '@/components/steps/warnings-notice';
+import { RunLogged } from './run-logged';
 import { Stepper } from './stepper';
 
 const GAS_CHOICES = [

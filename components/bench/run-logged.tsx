@@ -5,10 +5,9 @@ import { space } from '@/components/theme';
 import { PrintLabelsButton } from '@/components/labels/print-labels';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Notice } from '@/components/ui/notice';
-import { Text } from '@/components/ui/text';
 import { TextLink } from '@/components/ui/text-link';
 import type { StepWarning } from '@/hooks/use-step-outbox';
+import { WarningsNotice } from '@/components/steps/warnings-notice';
 
 export interface RunLoggedProps {
   step: Step;
@@ -42,23 +41,6 @@ export function RunLogged({ step, warnings, onAnother }: RunLoggedProps) {
       </View>
       <TextLink href={`/steps/${step.id}`}>See the full step</TextLink>
     </Card>
-  );
-}
-
-export function WarningsNotice({
-  warnings,
-  title = 'Unusual values, logged as given',
-}: {
-  warnings: readonly StepWarning[];
-  title?: string;
-}) {
-  if (warnings.length === 0) return null;
-  return (
-    <Notice tone="warn" title={title} testID="run-warnings">
-      {warnings.map((warning) => (
-        <Text key={warning.message}>{warning.message}</Text>
-      ))}
-    </Notice>
   );
 }
 

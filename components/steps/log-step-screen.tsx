@@ -13,6 +13,8 @@ import { ChoiceChips } from '@/components/ui/choice-chips';
 import { errorsFromIssues, errorsFromRequest, partitionErrors, type PathErrors } from '@/components/ui/field-errors';
 import { FormProblem } from '@/components/ui/form-problem';
 import { Notice } from '@/components/ui/notice';
+import { unusualStepValues } from '@/shared/step-warnings';
+import { WarningsNotice } from './warnings-notice';
 import { Screen } from '@/components/ui/screen';
 import { Text } from '@/components/ui/text';
 import { TextField } from '@/components/ui/text-field';
@@ -107,6 +109,8 @@ function LogStepForm({ inputCode }: { inputCode: string | null }) {
 
   const { type } = values;
   const caution = type ? STEP_CAUTIONS[type] : undefined;
+  const draft = StepCreateInput.safeParse(stepCandidate(values).candidate);
+  const unusual = draft.success ? unusualStepValues(draft.data) : [];
   const { placed, rest } = partitionErrors(errors, (key) => isShownKey(key, type));
 
   return (
@@ -145,6 +149,7 @@ function LogStepForm({ inputCode }: { inputCode: string | null }) {
             onChange={(name, text) => setParameter(type, name, text)}
             errors={placed}
           />
+          <WarningsNotice warnings={unusual} title="Unusual values — check before logging" />
         </Card>
       ) : null}
 
