@@ -37,27 +37,35 @@ export const STATUS_LABELS: Record<UserStatus, string> = {
   deactivated: 'Deactivated',
 };
 
-const STATUS_LOOKS: Record<UserStatus, Look & { dot: keyof Palette }> = {
+/** Colours of a pill: its background, its text and its dot. */
+export type PillLook = Look & { dot: keyof Palette };
+
+const STATUS_LOOKS: Record<UserStatus, PillLook> = {
   invited: { background: 'warnSoft', text: 'onWarnSoft', dot: 'onWarnSoft' },
   active: { background: 'successSoft', text: 'onSuccessSoft', dot: 'onSuccessSoft' },
   deactivated: { background: 'neutralSoft', text: 'onNeutralSoft', dot: 'outline' },
 };
 
-/** A rounded pill with a dot: whether the account can be used right now. */
-export function StatusPill({ status }: { status: UserStatus }) {
+/** A rounded pill with a dot: the shape every status takes, so statuses never read as roles. */
+export function DotPill({ label, look, testID }: { label: string; look: PillLook; testID?: string }) {
   const { colors } = useTheme();
-  const look = STATUS_LOOKS[status];
   return (
     <View
-      accessibilityLabel={`Status: ${STATUS_LABELS[status]}`}
+      accessibilityLabel={`Status: ${label}`}
       style={[styles.chip, styles.pill, { backgroundColor: colors[look.background] }]}
+      testID={testID}
     >
       <View style={[styles.dot, { backgroundColor: colors[look.dot] }]} />
-      <Text variant="caption" style={[styles.chipText, { color: colors[look.text] }]}>
-        {STATUS_LABELS[status]}
+      <Text variant="caption" numberOfLines={1} style={[styles.chipText, { color: colors[look.text] }]}>
+        {label}
       </Text>
     </View>
   );
+}
+
+/** Whether the account can be used right now. */
+export function StatusPill({ status }: { status: UserStatus }) {
+  return <DotPill label={STATUS_LABELS[status]} look={STATUS_LOOKS[status]} />;
 }
 
 const DOT_SIZE = space.sm;
