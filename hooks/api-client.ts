@@ -50,6 +50,16 @@ const FALLBACK_MESSAGES: Record<ApiErrorCode, string> = {
   too_many_attempts: 'Too many attempts. Wait a few minutes and try again.',
   database_unavailable: 'The Flakeline database is not available right now. Try again in a minute.',
   mail_unavailable: 'The mail server could not be reached, so no e-mail was sent.',
+  not_a_device: 'Only a device record can carry a lens design or device measurements.',
+  share_link_expired: 'This shared audit link has expired. Ask the lab for a new one.',
+  share_link_revoked: 'This shared audit link was withdrawn by the lab.',
+  file_type_mismatch:
+    'That file is not what its name or the chosen kind says. Micrographs are JPEG, PNG or TIFF; spectra and profiles are text.',
+  image_too_large: 'That image has more pixels than Flakeline accepts. Save a smaller or cropped copy and try again.',
+  image_corrupt: 'That image could not be read; it may be damaged or cut short. Export it again and retry.',
+  spectrum_invalid: 'That file is not a two-column spectrum or profile Flakeline can read.',
+  file_missing: 'The stored file is missing from the lab’s file store. Tell your lab manager.',
+  file_altered: 'The stored file no longer matches its checksum, so it is not shown. Tell your lab manager.',
   internal: 'The Flakeline server ran into a problem. Try again; if it keeps happening, tell your lab manager.',
   network_unreachable: NETWORK_MESSAGE,
   unexpected_response:
@@ -94,7 +104,8 @@ export function forgetCsrfToken(): void {
   csrfToken = null;
 }
 
-async function loadCsrfToken(): Promise<string> {
+/** The session's CSRF token, fetched once; also used by the upload helper, which sends multipart bodies. */
+export async function loadCsrfToken(): Promise<string> {
   if (csrfToken) return csrfToken;
   if (!csrfRequest) {
     const generation = csrfGeneration;
@@ -148,7 +159,8 @@ async function readJson(response: Response): Promise<unknown> {
   }
 }
 
-async function readError(response: Response): Promise<ApiError> {
+/** The error envelope of a failed answer as an `ApiError` (also used by the upload helper). */
+export async function readError(response: Response): Promise<ApiError> {
   const parsed = ApiErrorBody.safeParse(await readJson(response));
   if (parsed.success) {
     const { code, message, fields } = parsed.data.error;

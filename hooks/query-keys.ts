@@ -19,6 +19,8 @@ export interface SampleListKeyFilters {
   status: readonly string[];
   material: string;
   ownerId: number | null;
+  layersMin: number | null;
+  layersMax: number | null;
   q: string;
   sort: string;
   order: 'asc' | 'desc';
@@ -65,6 +67,44 @@ export const linkKeys = {
   invitation: (token: string) => [...linkKeys.all, 'invitation', token] as const,
 };
 
+export const evidenceKeys = {
+  all: ['evidence'] as const,
+  /** A sample's evidence list and its combined layer call. */
+  ofSample: (code: string) => [...evidenceKeys.all, 'sample', code] as const,
+  detail: (id: number) => [...evidenceKeys.all, 'detail', id] as const,
+  /** The text of a stored spectrum or profile, which never changes (it is named by its checksum). */
+  fileText: (sha256: string) => [...evidenceKeys.all, 'file-text', sha256] as const,
+};
+
+export const calibrationKeys = {
+  all: ['calibrations'] as const,
+  list: (includeRetired: boolean) => [...calibrationKeys.all, 'list', includeRetired] as const,
+};
+
+export const deviceKeys = {
+  all: ['devices'] as const,
+  lensDesign: (code: string) => [...deviceKeys.all, 'lens-design', code] as const,
+  measurements: (code: string) => [...deviceKeys.all, 'measurements', code] as const,
+};
+
+export const labSettingsKeys = {
+  all: ['lab-settings'] as const,
+  current: () => [...labSettingsKeys.all, 'current'] as const,
+};
+
+export const lineageGraphKeys = {
+  all: ['lineage-graph'] as const,
+  detail: (code: string) => [...lineageGraphKeys.all, code] as const,
+};
+
+export const auditKeys = {
+  all: ['audits'] as const,
+  report: (code: string) => [...auditKeys.all, 'report', code] as const,
+  /** An audit opened through a share link, signed out. */
+  shared: (token: string) => [...auditKeys.all, 'shared', token] as const,
+  shareLinks: (code: string) => [...auditKeys.all, 'share-links', code] as const,
+};
+
 /**
  * How long each kind of answer counts as fresh, in milliseconds. The session rarely changes
  * under us; the people list changes when a colleague acts; the outbox is for watching mail arrive.
@@ -85,4 +125,14 @@ export const STALE_TIMES = {
   labelTemplates: 5 * 60_000,
   /** Saved step templates change only when their owner saves one. */
   stepTemplates: 60_000,
+  /** Evidence changes when someone uploads or marks regions; as fresh as the sample it belongs to. */
+  evidence: 15_000,
+  /** Calibrations are measured once per microscope and objective and rarely replaced. */
+  calibrations: 5 * 60_000,
+  /** A lens design or a measurement changes when someone on the device's project saves one. */
+  devices: 15_000,
+  /** Managers change the lab's settings rarely. */
+  labSettings: 5 * 60_000,
+  /** An audit re-hashes every file and the history chain: worth keeping a minute. */
+  audit: 60_000,
 } as const;

@@ -43,6 +43,8 @@ function resultsPath(filters: SampleListFilters, page: number): string {
   if (filters.status.length) query.set('status', filters.status.join(','));
   if (filters.material.trim()) query.set('material', filters.material.trim());
   if (filters.ownerId !== null) query.set('ownerId', String(filters.ownerId));
+  if (filters.layersMin !== null) query.set('layersMin', String(filters.layersMin));
+  if (filters.layersMax !== null) query.set('layersMax', String(filters.layersMax));
   if (filters.q.trim()) query.set('q', filters.q.trim());
   query.set('sort', filters.sort);
   query.set('order', filters.order);

@@ -24,6 +24,9 @@ export interface SampleListFilters {
   status: readonly SampleStatus[];
   material: string;
   ownerId: number | null;
+  /** Bounds on the combined layer call from thickness evidence; null leaves that side open. */
+  layersMin: number | null;
+  layersMax: number | null;
   q: string;
   sort: SampleSort;
   order: SortOrder;
@@ -34,6 +37,8 @@ export const DEFAULT_SAMPLE_FILTERS: SampleListFilters = {
   status: [],
   material: '',
   ownerId: null,
+  layersMin: null,
+  layersMax: null,
   q: '',
   sort: 'createdAt',
   order: 'desc',
@@ -52,6 +57,8 @@ function listPath(filters: SampleListFilters, page: number, pageSize: number): s
   if (filters.status.length) query.set('status', filters.status.join(','));
   if (filters.material.trim()) query.set('material', filters.material.trim());
   if (filters.ownerId !== null) query.set('ownerId', String(filters.ownerId));
+  if (filters.layersMin !== null) query.set('layersMin', String(filters.layersMin));
+  if (filters.layersMax !== null) query.set('layersMax', String(filters.layersMax));
   if (filters.q.trim()) query.set('q', filters.q.trim());
   query.set('sort', filters.sort);
   query.set('order', filters.order);

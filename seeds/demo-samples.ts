@@ -4,6 +4,7 @@ import type { UserModel } from '../server/models/user-model';
 import { registerSample } from '../server/services/sample-registry';
 import { logStep } from '../server/services/step-logger';
 import { createBox, createPlace, moveSample } from '../server/services/storage';
+import { seedDemoDevices } from './demo-devices';
 
 /**
  * The demo lab's samples: invented suppliers, lots and runs. Two bulk crystals are exfoliated
@@ -142,6 +143,7 @@ export async function seedDemoSamples(trx: Knex.Transaction, people: { manager: 
     treated: [lens],
     parameters: { gas: 'SF6/O2', powerW: 50, pressureMTorr: 40, durationS: 20 },
   });
+  await seedDemoDevices(trx, { researcher, lensCode: lens });
 
   const tungstenOxide = await registerSample({
     trx,

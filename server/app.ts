@@ -8,6 +8,7 @@ import { createCsrf } from './auth/csrf';
 import { createPassport } from './auth/passport';
 import { createSessionMiddleware } from './auth/session';
 import type { ServerConfig } from './config';
+import { createFileStore } from './files/file-store';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { mountRoutes, type AnyRouteSpec } from './http/route';
 import { webAppRouter } from './http/web-app';
@@ -23,6 +24,12 @@ import { stepTemplateRoutes } from './routes/step-templates/step-template-routes
 import { stepRoutes } from './routes/steps/step-routes';
 import { storageRoutes } from './routes/storage/storage-routes';
 import { labelRoutes } from './routes/labels/label-routes';
+import { auditRoutes } from './routes/audits/audit-routes';
+import { deviceRoutes } from './routes/devices/device-routes';
+import { shareLinkRoutes } from './routes/share-links/share-link-routes';
+import { calibrationRoutes } from './routes/evidence/calibration-routes';
+import { evidenceRoutes } from './routes/evidence/evidence-routes';
+import { fileRoutes } from './routes/evidence/file-routes';
 import { systemRoutes } from './routes/system/system-routes';
 import { userRoutes } from './routes/users/user-routes';
 
@@ -39,6 +46,12 @@ export function apiRouteSpecs(context: AppContext): AnyRouteSpec[] {
     ...stepTemplateRoutes(context),
     ...storageRoutes(context),
     ...labelRoutes(context),
+    ...deviceRoutes(context),
+    ...auditRoutes(context),
+    ...shareLinkRoutes(context),
+    ...evidenceRoutes(context),
+    ...fileRoutes(context),
+    ...calibrationRoutes(context),
   ];
   let document: unknown;
   const system = systemRoutes(context, () => (document ??= buildOpenApiDocument(all, context.config.publicBaseUrl)));
@@ -50,7 +63,12 @@ export function createApp(deps: { config: ServerConfig; knex: Knex; mailer: Mail
   const { config } = deps;
   // Models without an explicit transaction use the server's knex.
   Model.knex(deps.knex);
-  const context: AppContext = { ...deps, passport: createPassport(), csrf: createCsrf() };
+  const context: AppContext = {
+    ...deps,
+    passport: createPassport(),
+    csrf: createCsrf(),
+    files: createFileStore(config.storage),
+  };
   const session = createSessionMiddleware(config);
   const specs = apiRouteSpecs(context);
 

@@ -24,6 +24,41 @@ export interface ServerConfig {
   webDistDir: string;
   invitationTtlHours: number;
   passwordResetTtlMinutes: number;
+  /** Where uploaded evidence files are kept: a local folder (default) or an S3-compatible bucket. */
+  storage: StorageConfig;
+}
+
+export type StorageConfig =
+  | { backend: 'local'; dir: string }
+  | {
+      backend: 's3';
+      endpoint: string;
+      bucket: string;
+      region: string;
+      accessKeyId: string;
+      secretAccessKey: string;
+    };
+
+/** STORAGE_BACKEND=s3 with S3_ENDPOINT, S3_BUCKET, S3_REGION, S3_ACCESS_KEY_ID, S3_SECRET_ACCESS_KEY; else STORAGE_DIR. */
+function storageFromEnv(env: Record<string, string | undefined>): StorageConfig {
+  const backend = env.STORAGE_BACKEND ?? 'local';
+  if (backend === 'local') {
+    return { backend, dir: env.STORAGE_DIR ? path.resolve(env.STORAGE_DIR) : path.join(REPO_ROOT, 'storage', 'blobs') };
+  }
+  if (backend !== 's3') throw new Error(`STORAGE_BACKEND is "local" or "s3", got "${backend}"`);
+  const required = (name: string): string => {
+    const value = env[name];
+    if (!value) throw new Error(`${name} is not set (needed with STORAGE_BACKEND=s3).`);
+    return value;
+  };
+  return {
+    backend,
+    endpoint: required('S3_ENDPOINT'),
+    bucket: required('S3_BUCKET'),
+    region: env.S3_REGION ?? 'us-east-1',
+    accessKeyId: required('S3_ACCESS_KEY_ID'),
+    secretAccessKey: required('S3_SECRET_ACCESS_KEY'),
+  };
 }
 
 export const REPO_ROOT = path.resolve(__dirname, '..');
@@ -64,5 +99,6 @@ export function configFromEnv(env: Record<string, string | undefined> = process.
     webDistDir: env.WEB_DIST_DIR ? path.resolve(env.WEB_DIST_DIR) : path.join(REPO_ROOT, 'dist'),
     invitationTtlHours: numberFrom(env.INVITATION_TTL_HOURS, 72),
     passwordResetTtlMinutes: numberFrom(env.PASSWORD_RESET_TTL_MINUTES, 60),
+    storage: storageFromEnv(env),
   };
 }

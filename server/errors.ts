@@ -53,3 +53,22 @@ export const databaseUnavailable = () =>
   new AppError(503, 'database_unavailable', 'The database is not answering. Try again in a moment.');
 export const mailUnavailable = () =>
   new AppError(503, 'mail_unavailable', 'The mail server did not accept the message. Nothing was saved; try again.');
+export const notADevice = (message: string) => new AppError(422, 'not_a_device', message);
+export const shareLinkExpired = () =>
+  new AppError(410, 'share_link_expired', 'This shared audit link has expired. Ask the lab that sent it for a new one.');
+export const shareLinkRevoked = () =>
+  new AppError(410, 'share_link_revoked', 'This shared audit link was withdrawn by the lab that sent it.');
+export const fileTypeMismatch = (message: string) => new AppError(415, 'file_type_mismatch', message);
+export const imageTooLarge = (message: string) => new AppError(413, 'image_too_large', message);
+export const imageCorrupt = (message: string) => new AppError(422, 'image_corrupt', message);
+export const spectrumInvalid = (message: string, fields?: FieldErrors) => new AppError(422, 'spectrum_invalid', message, fields);
+/** A stored file the database names but the file store no longer has. */
+export const fileMissing = (sha256: string) =>
+  new AppError(409, 'file_missing', `The stored file ${sha256.slice(0, 12)}… is missing from the file store. Nothing was sent.`);
+/** A stored file whose bytes no longer hash to its name: never served. */
+export const fileAltered = (sha256: string) =>
+  new AppError(
+    409,
+    'file_altered',
+    `The stored file ${sha256.slice(0, 12)}… no longer matches its SHA-256 checksum, so it is not served.`,
+  );

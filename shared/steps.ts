@@ -10,6 +10,7 @@ export const STEP_TYPES = [
   'encapsulation',
   'metal_deposition',
   'cleaving',
+  'flake_search',
 ] as const;
 export type StepType = (typeof STEP_TYPES)[number];
 
@@ -24,6 +25,7 @@ export const STEP_TYPE_LABELS: Record<StepType, string> = {
   encapsulation: 'Encapsulation',
   metal_deposition: 'Metal deposition',
   cleaving: 'Cleaving',
+  flake_search: 'Flake search',
 };
 
 /**

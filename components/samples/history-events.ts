@@ -77,6 +77,42 @@ export function stepTypePhrase(type: string): string {
 
 const stepLabel = (type: z.infer<typeof StepTypeField>) => stepTypePhrase(type);
 
+const EVIDENCE_KIND_WORDS: Record<string, string> = {
+  micrograph: 'micrograph',
+  raman: 'Raman spectrum',
+  pl: 'PL spectrum',
+  afm: 'AFM profile',
+};
+const text = (value: unknown) => (typeof value === 'string' || typeof value === 'number' ? String(value) : null);
+
+/** Events whose sentence needs at most a line or two from the payload. */
+const PLAIN_EVENTS: Partial<
+  Record<string, { icon: IconName; title: string; lines?: (payload: Record<string, unknown>) => string[] }>
+> = {
+  'sample.moved': { icon: 'move-outline', title: 'Moved' },
+  'evidence.added': {
+    icon: 'document-attach-outline',
+    title: 'Thickness evidence added',
+    lines: (p) => [EVIDENCE_KIND_WORDS[String(p.kind)] ?? 'file', text(p.originalName)].filter((line): line is string => !!line),
+  },
+  'evidence.edited': { icon: 'create-outline', title: 'Evidence details edited' },
+  'evidence.analysed': { icon: 'analytics-outline', title: 'Evidence analysed' },
+  'lens_design.saved': {
+    icon: 'aperture-outline',
+    title: 'Lens design saved',
+    lines: (p) => (text(p.zoneCount) ? [`${text(p.zoneCount)} zones`] : []),
+  },
+  'measurement.added': { icon: 'stats-chart-outline', title: 'Measurement added' },
+  'measurement.deleted': { icon: 'trash-outline', title: 'Measurement removed' },
+  'share_link.created': { icon: 'share-social-outline', title: 'Audit share link issued' },
+  'share_link.revoked': { icon: 'close-circle-outline', title: 'Audit share link withdrawn' },
+  'share_link.opened': {
+    icon: 'eye-outline',
+    title: 'Audit opened through a share link',
+    lines: (p) => (text(p.format) ? [`As ${text(p.format)}`] : []),
+  },
+};
+
 /**
  * A sentence for one event of a sample's history, read from its payload. `madeByType` is the type
  * of the step that made the sample (its creation event names only the step's id).
@@ -143,7 +179,11 @@ export function describeEvent(event: HistoryEvent, madeByType?: string): Describ
       return { icon: 'git-merge-outline', title: 'Step logged', lines: [] };
     case 'samples.imported':
       return { icon: 'cloud-upload-outline', title: 'Imported', lines: [] };
-    default:
-      return { icon: 'ellipse-outline', title: event.type, lines: [] };
+    default: {
+      const plain = PLAIN_EVENTS[event.type];
+      return plain
+        ? { icon: plain.icon, title: plain.title, lines: plain.lines?.(record(payload)) ?? [] }
+        : { icon: 'ellipse-outline', title: event.type, lines: [] };
+    }
   }
 }

@@ -4,7 +4,9 @@ import { StyleSheet, View } from 'react-native';
 import { SAMPLE_KIND_LABELS } from '@/shared/samples';
 import type { Sample } from '@/shared/schemas/sample';
 import { STEP_TYPE_LABELS, STEP_TYPES } from '@/shared/steps';
+import { RecordProvenanceSection } from '@/components/audit/record-provenance-section';
 import { SampleLocationCard } from '@/components/boxes/sample-location-card';
+import { EvidenceCard } from '@/components/evidence/evidence-card';
 import { fontFaces, space } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -65,8 +67,10 @@ export function SampleDetail({ code }: { code: string }) {
       <SampleLocationCard sample={record} />
       <PropertiesCard sample={record} />
       <OriginCard sample={record} />
+      <EvidenceCard code={record.code} kind={record.kind} status={record.status} />
       <LineageCard code={record.code} direction="ancestors" />
       <LineageCard code={record.code} direction="descendants" />
+      <RecordProvenanceSection sample={record} />
       <HistoryCard code={record.code} madeBy={record.madeBy} />
     </View>
   );

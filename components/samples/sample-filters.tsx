@@ -6,7 +6,7 @@ import { CheckToggle } from '@/components/ui/check-toggle';
 import { ChoiceChips, MultiChoiceChips } from '@/components/ui/choice-chips';
 import type { Choice } from '@/components/ui/choice-group';
 import type { SampleSort, SortOrder } from '@/hooks/use-samples';
-import { activeFilterCount, type SampleListView } from './sample-list-params';
+import { activeFilterCount, LAYER_BANDS, type LayerBand, type SampleListView } from './sample-list-params';
 
 const KIND_CHOICES = SAMPLE_KINDS.map((value) => ({ value, label: SAMPLE_KIND_LABELS[value] }));
 const STATUS_CHOICES = SAMPLE_STATUSES.map((value) => ({ value, label: SAMPLE_STATUS_LABELS[value] }));
@@ -14,6 +14,11 @@ const ANY = '';
 const MATERIAL_CHOICES: readonly Choice<string>[] = [
   { value: ANY, label: 'Any' },
   ...COMMON_MATERIALS.map((value) => ({ value, label: value })),
+];
+
+const LAYER_CHOICES: readonly Choice<LayerBand | ''>[] = [
+  { value: ANY, label: 'Any' },
+  ...(Object.keys(LAYER_BANDS) as LayerBand[]).map((value) => ({ value, label: LAYER_BANDS[value].label })),
 ];
 
 type SortChoice = `${SampleSort}:${SortOrder}`;
@@ -69,6 +74,13 @@ export function SampleFilters({ view, onChange, withSort, withMine }: SampleFilt
         onChange={(next) => onChange({ ...view, material: next })}
         testID="filter-material"
       />
+      <ChoiceChips
+        label="Layer call"
+        choices={LAYER_CHOICES}
+        value={view.layers}
+        onChange={(layers) => onChange({ ...view, layers })}
+        testID="filter-layers"
+      />
       {withMine ? (
         <CheckToggle
           label="Only my samples"
@@ -91,7 +103,7 @@ export function SampleFilters({ view, onChange, withSort, withMine }: SampleFilt
           title="Clear filters"
           variant="secondary"
           icon="close"
-          onPress={() => onChange({ ...view, kind: [], status: [], material: '', mine: false })}
+          onPress={() => onChange({ ...view, kind: [], status: [], material: '', mine: false, layers: '' })}
           testID="filter-clear"
         />
       ) : null}

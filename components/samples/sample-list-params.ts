@@ -14,12 +14,24 @@ export interface SampleListView {
   material: string;
   /** Only the signed-in person's samples. */
   mine: boolean;
+  /** A band of the combined layer call (`LAYER_BANDS`), '' for any. */
+  layers: LayerBand | '';
   q: string;
   sort: SampleSort;
   order: SortOrder;
 }
 
 export type RouteParams = Record<string, string | string[] | undefined>;
+
+/** Layer-call bands the list can be narrowed to: what people hunt for, then "few" and "thick". */
+export const LAYER_BANDS = {
+  '1': { label: 'Monolayer', min: 1, max: 1 },
+  '2': { label: 'Bilayer', min: 2, max: 2 },
+  '3-5': { label: '3–5 layers', min: 3, max: 5 },
+  '6-': { label: '6 or more', min: 6, max: null },
+} as const satisfies Record<string, { label: string; min: number; max: number | null }>;
+export type LayerBand = keyof typeof LAYER_BANDS;
+const LAYER_BAND_KEYS = Object.keys(LAYER_BANDS) as LayerBand[];
 
 function first(value: string | string[] | undefined): string {
   return (Array.isArray(value) ? value[0] : value) ?? '';
@@ -43,6 +55,7 @@ export function parseSampleListView(params: RouteParams): SampleListView {
     status: listOf(params.status, SAMPLE_STATUSES),
     material: first(params.material).trim(),
     mine: first(params.mine) === '1',
+    layers: oneOf(params.layers, LAYER_BAND_KEYS, '' as const),
     q: first(params.q),
     sort: oneOf(params.sort, SAMPLE_SORTS, DEFAULT_SAMPLE_FILTERS.sort),
     order: oneOf(params.order, ['asc', 'desc'] as const, DEFAULT_SAMPLE_FILTERS.order),
@@ -56,6 +69,7 @@ export function viewParams(view: SampleListView): Record<string, string | undefi
     status: view.status.length ? view.status.join(',') : undefined,
     material: view.material || undefined,
     mine: view.mine ? '1' : undefined,
+    layers: view.layers || undefined,
     q: view.q.trim() || undefined,
     sort: view.sort === DEFAULT_SAMPLE_FILTERS.sort ? undefined : view.sort,
     order: view.order === DEFAULT_SAMPLE_FILTERS.order ? undefined : view.order,
@@ -68,6 +82,8 @@ export function filtersFor(view: SampleListView, userId: number | undefined): Sa
     status: view.status,
     material: view.material,
     ownerId: view.mine && userId !== undefined ? userId : null,
+    layersMin: view.layers ? LAYER_BANDS[view.layers].min : null,
+    layersMax: view.layers ? LAYER_BANDS[view.layers].max : null,
     q: view.q,
     sort: view.sort,
     order: view.order,
@@ -76,7 +92,7 @@ export function filtersFor(view: SampleListView, userId: number | undefined): Sa
 
 /** How many filters narrow the list (search text and sorting not counted). */
 export function activeFilterCount(view: SampleListView): number {
-  return view.kind.length + view.status.length + (view.material ? 1 : 0) + (view.mine ? 1 : 0);
+  return view.kind.length + view.status.length + (view.material ? 1 : 0) + (view.mine ? 1 : 0) + (view.layers ? 1 : 0);
 }
 
 function definedOnly(params: Record<string, string | undefined>): Record<string, string> {

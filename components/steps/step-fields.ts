@@ -9,6 +9,7 @@ import {
   EtchingParameters,
   EXFOLIATION_METHODS,
   ExfoliationParameters,
+  FlakeSearchParameters,
   LithographyParameters,
   MetalDepositionParameters,
   PRETREATMENTS,
@@ -30,6 +31,7 @@ export const PARAMETER_SCHEMAS = {
   encapsulation: EncapsulationParameters,
   metal_deposition: MetalDepositionParameters,
   cleaving: CleavingParameters,
+  flake_search: FlakeSearchParameters,
 } as const satisfies Record<StepType, z.ZodObject>;
 
 type ParameterName<T extends StepType> = Extract<keyof z.input<(typeof PARAMETER_SCHEMAS)[T]>, string>;
@@ -141,6 +143,10 @@ export const STEP_FIELDS: { [T in StepType]: readonly StepField<ParameterName<T>
     { name: 'method', label: 'Method', control: 'text' },
   ],
   cleaving: [{ name: 'method', label: 'Method', control: 'text' }],
+  flake_search: [
+    { name: 'microscope', label: 'Microscope', control: 'text' },
+    { name: 'objectiveMagnification', label: 'Objective magnification', unit: '×', control: 'number' },
+  ],
 };
 
 export const STEP_TYPE_CHOICES: readonly Choice<StepType>[] = STEP_TYPES.map((value) => ({
@@ -161,6 +167,7 @@ export const USUAL_OUTPUT: Partial<Record<StepType, SampleKind>> = {
   encapsulation: 'stack',
   metal_deposition: 'device',
   cleaving: 'chip',
+  flake_search: 'flake',
 };
 
 export function stepFields(type: StepType): readonly StepField[] {

@@ -9,7 +9,7 @@ const path = require('node:path');
 
 const root = path.resolve(__dirname, '..', '..');
 const command = process.argv[2];
-const commands = { start: 'start.ts', test: 'test.ts', 'db-stop': 'db-stop.ts', bench: 'bench.ts' };
+const commands = { start: 'start.ts', test: 'test.ts', 'db-stop': 'db-stop.ts', bench: 'bench.ts', 'verify-audit': 'verify-audit.ts', 'bench-evidence': 'bench-evidence.ts' };
 if (!commands[command]) {
   process.stderr.write(`Usage: node server/cli/bootstrap.cjs ${Object.keys(commands).join('|')}\n`);
   process.exit(2);

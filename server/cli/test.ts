@@ -8,6 +8,7 @@ import { prepareDatabase } from '../db/prepare-database';
 import { startMailSink } from '../mail/mail-sink';
 import { startServer } from '../main';
 import { seedDemoLab } from '../../seeds/demo-lab';
+import { startFakeS3 } from './fake-s3';
 import { APP_ROLE, ensureClusterRunning, ensureDatabase, type DatabaseUrls } from './local-postgres';
 import { loadLocalSecrets } from './local-secrets';
 import { progress } from './progress';
@@ -65,6 +66,9 @@ async function main() {
 
   const mailDir = mkdtempSync(path.join(os.tmpdir(), 'flakeline-e2e-mail-'));
   const sink = await startMailSink({ host: '127.0.0.1', port: 0, dir: mailDir });
+  // Uploaded files of the browser suite go to a throwaway folder; the S3 path is tested against a local fake.
+  const e2eBlobDir = mkdtempSync(path.join(os.tmpdir(), 'flakeline-e2e-blobs-'));
+  const fakeS3 = await startFakeS3();
   const server = await startServer(
     configFromEnv({
       DATABASE_URL: e2eUrls.app,
@@ -72,6 +76,7 @@ async function main() {
       PORT: '0',
       SMTP_PORT: String(sink.port),
       MAIL_SINK_DIR: mailDir,
+      STORAGE_DIR: e2eBlobDir,
     }),
   );
 
@@ -92,6 +97,11 @@ async function main() {
           E2E_BASE_URL: `http://127.0.0.1:${server.port}`,
           E2E_SCREENSHOT_DIR: path.join(DATA_DIR, 'screenshots'),
           CHROMIUM_PATH: CHROMIUM,
+          TEST_S3_ENDPOINT: fakeS3.env.S3_ENDPOINT,
+          TEST_S3_BUCKET: fakeS3.env.S3_BUCKET,
+          TEST_S3_REGION: fakeS3.env.S3_REGION,
+          TEST_S3_ACCESS_KEY_ID: fakeS3.env.S3_ACCESS_KEY_ID,
+          TEST_S3_SECRET_ACCESS_KEY: fakeS3.env.S3_SECRET_ACCESS_KEY,
         },
       },
     );
@@ -99,7 +109,9 @@ async function main() {
   });
   await server.close();
   await sink.close();
+  await fakeS3.close();
   rmSync(mailDir, { recursive: true, force: true });
+  rmSync(e2eBlobDir, { recursive: true, force: true });
 
   let passed = 0;
   let failed = 0;

@@ -35,9 +35,9 @@ export interface RouteSpec<B = undefined, Q = undefined, P = undefined, R = unkn
   query?: Q;
   params?: P;
   /** Media type of the body when it is not JSON (e.g. a CSV upload). */
-  bodyType?: 'text/csv';
+  bodyType?: 'text/csv' | 'multipart/form-data';
   /** Media type of a successful answer the handler streams itself (e.g. a CSV export). */
-  producesType?: 'text/csv' | 'application/pdf';
+  producesType?: 'text/csv' | 'application/pdf' | 'application/ld+json' | 'application/octet-stream';
   /** Shape of a successful answer; the handler's result is checked against it. */
   response?: z.ZodType<R>;
   /** Status of a successful answer: 200 by default, 204 when there is no response schema. */

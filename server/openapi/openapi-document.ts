@@ -12,6 +12,7 @@ const STATUS_TEXT: Record<number, string> = {
   409: 'Conflicts with the current state',
   410: 'The link has expired or was used',
   413: 'Request too large',
+  415: 'The file is not of a type the route accepts',
   422: 'Validation failed; error.fields lists each field',
   429: 'Too many attempts',
   503: 'A service (database or mail) is not answering',
@@ -74,7 +75,15 @@ export function buildOpenApiDocument(specs: readonly AnyRouteSpec[], serverUrl: 
     const responses: Record<string, unknown> = {};
     const success = spec.successStatus ?? (spec.response || spec.producesType ? 200 : 204);
     responses[String(success)] = spec.producesType
-      ? { description: 'Success', content: { [spec.producesType]: { schema: { type: 'string' } } } }
+      ? {
+          description: 'Success',
+          content: {
+            [spec.producesType]: {
+              schema:
+                spec.producesType === 'application/octet-stream' ? { type: 'string', format: 'binary' } : { type: 'string' },
+            },
+          },
+        }
       : spec.response
         ? { description: 'Success', content: { 'application/json': { schema: schemaFor(spec.response, 'output') } } }
         : { description: 'Success, no content' };
@@ -109,7 +118,20 @@ export function buildOpenApiDocument(specs: readonly AnyRouteSpec[], serverUrl: 
         ? {
             requestBody: {
               required: true,
-              content: { [spec.bodyType ?? 'application/json']: { schema: schemaFor(spec.body, 'input') } },
+              content: {
+                [spec.bodyType ?? 'application/json']: {
+                  // A multipart upload's file part is not a zod field: it is described beside the text fields.
+                  schema:
+                    spec.bodyType === 'multipart/form-data'
+                      ? {
+                          allOf: [
+                            schemaFor(spec.body, 'input'),
+                            { type: 'object', properties: { file: { type: 'string', format: 'binary' } }, required: ['file'] },
+                          ],
+                        }
+                      : schemaFor(spec.body, 'input'),
+                },
+              },
             },
           }
         : {}),

@@ -22,6 +22,7 @@ export function filteredSamples(knex: Knex, filters: SampleListFilters) {
   if (filters.ownerId) query.where('s.owner_id', filters.ownerId);
   if (filters.layersMin !== undefined) query.where('s.layer_estimate', '>=', filters.layersMin);
   if (filters.layersMax !== undefined) query.where('s.layer_estimate', '<=', filters.layersMax);
+  if (filters.layers !== undefined) query.where('s.layer_estimate', filters.layers);
   if (filters.createdFrom) query.where('s.created_at', '>=', filters.createdFrom);
   if (filters.createdTo) query.where('s.created_at', '<=', filters.createdTo);
   if (filters.awaitingSearch) {

@@ -26,6 +26,15 @@ export const ERROR_CODES = [
   'too_many_attempts',
   'database_unavailable',
   'mail_unavailable',
+  'not_a_device',
+  'share_link_expired',
+  'share_link_revoked',
+  'file_type_mismatch',
+  'image_too_large',
+  'image_corrupt',
+  'spectrum_invalid',
+  'file_missing',
+  'file_altered',
   'internal',
 ] as const;
 export type ErrorCode = (typeof ERROR_CODES)[number];

@@ -11,6 +11,18 @@ export const HISTORY_EVENT_TYPES = [
   'sample.moved',
   'step.logged',
   'samples.imported',
+  'lab_settings.changed',
+  'lens_design.saved',
+  'measurement.added',
+  'measurement.deleted',
+  'share_link.created',
+  'share_link.revoked',
+  'share_link.opened',
+  'evidence.added',
+  'evidence.edited',
+  'evidence.analysed',
+  'calibration.created',
+  'calibration.retired',
 ] as const;
 export type HistoryEventType = (typeof HISTORY_EVENT_TYPES)[number];
 

@@ -139,6 +139,12 @@ export const SampleListQuery = z
     ownerId: z.string().regex(/^\d+$/, 'Owner must be a person id.').transform(Number).optional(),
     layersMin: optionalNumber('Minimum layer count'),
     layersMax: optionalNumber('Maximum layer count'),
+    /** Exactly this combined layer call from the sample's thickness evidence. */
+    layers: z
+      .string()
+      .regex(/^[1-9]\d{0,2}$/, 'Layers is a whole number from 1.')
+      .transform(Number)
+      .optional(),
     createdFrom: z.iso.datetime({ offset: true, error: 'Use an ISO date-time, e.g. 2026-11-01T00:00:00Z.' }).optional(),
     createdTo: z.iso.datetime({ offset: true, error: 'Use an ISO date-time, e.g. 2026-11-30T23:59:59Z.' }).optional(),
     q: z.string().trim().max(100, 'Search text has at most 100 characters.').optional(),

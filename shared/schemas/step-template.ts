@@ -42,6 +42,7 @@ export const StepTemplateCreateInput = z
       forType('encapsulation'),
       forType('metal_deposition'),
       forType('cleaving'),
+      forType('flake_search'),
     ],
     { error: 'Choose a step type.' },
   )

@@ -103,6 +103,15 @@ export const MetalDepositionParameters = z
 
 export const CleavingParameters = z.object({ method: shortText('method', 80).optional() }).strict();
 
+/** Looking for flakes on a chip under the microscope; the micrograph it came from may be named. */
+export const FlakeSearchParameters = z
+  .object({
+    microscope: shortText('microscope', 80).optional(),
+    objectiveMagnification: positive('Objective magnification').max(1000).optional(),
+    evidenceId: z.number(label('Evidence id')).int().positive().optional(),
+  })
+  .strict();
+
 /** One new sample (or `count` alike) produced by a step. */
 export const StepOutputInput = z.object({
   kind: z.enum(SAMPLE_KINDS, { error: 'Choose the kind of output.' }),
@@ -153,6 +162,7 @@ export const StepCreateInput = z
       withParameters('encapsulation', EncapsulationParameters),
       withParameters('metal_deposition', MetalDepositionParameters),
       withParameters('cleaving', CleavingParameters),
+      withParameters('flake_search', FlakeSearchParameters),
     ],
     { error: 'Choose a step type.' },
   )
@@ -203,6 +213,7 @@ export const STEP_PARAMETER_SCHEMAS = {
   encapsulation: EncapsulationParameters,
   metal_deposition: MetalDepositionParameters,
   cleaving: CleavingParameters,
+  flake_search: FlakeSearchParameters,
 } as const satisfies Record<(typeof STEP_TYPES)[number], z.ZodObject>;
 
 export const IDEMPOTENCY_KEY_MIN_LENGTH = 8;

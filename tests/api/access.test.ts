@@ -1,5 +1,8 @@
-import type { Test } from 'supertest';
+import type { Response, Test } from 'supertest';
 import { issueLinkToken } from '../../server/services/link-tokens';
+import { insertDeviceScene } from '../helpers/device-factories';
+import { createFileStore, type FileStore } from '../../server/files/file-store';
+import { insertCalibration, insertChipMicrograph, smallChipPng } from '../helpers/evidence-factories';
 import { buildManager, buildPerson, TEST_PASSWORD } from '../helpers/factories';
 import { crystalInput, insertSample, insertStep, STEP_PARAMETERS, stepBody } from '../helpers/sample-factories';
 import { anonymousAgent, signedInAgent } from '../helpers/session-agent';
@@ -39,12 +42,16 @@ interface Scene {
   templateId: number;
   /** A step template owned by the caller (by `other` when the caller is anonymous). */
   stepTemplateId: number;
+  /** A chip of `other` with a micrograph whose candidates were found, its file's checksum, and a calibration. */
+  evidence: () => Promise<{ chipMicrographId: number; sha256: string; calibrationId: number }>;
+  /** A device of `other` with a lens design, one measurement and an open share link (and its token). */
+  device: () => Promise<{ code: string; measurementId: number; shareLinkId: number; shareToken: string }>;
 }
 
 interface AccessRow {
   route: string;
   expected: Record<Caller, number>;
-  send: (scene: Scene) => Test;
+  send: (scene: Scene) => PromiseLike<Response>;
 }
 
 function row(
@@ -53,7 +60,7 @@ function row(
   reviewer: number,
   researcher: number,
   manager: number,
-  send: (scene: Scene) => Test,
+  send: (scene: Scene) => PromiseLike<Response>,
 ): AccessRow {
   return { route, expected: { anonymous, reviewer, researcher, manager }, send };
 }
@@ -112,10 +119,53 @@ const ACCESS_TABLE: AccessRow[] = [
   row('GET /label-templates',                    401,     200,     200,      200, (s) => s.get('/api/label-templates')),
   row('POST /label-templates',                   401,     403,     403,      201, (s) => s.post('/api/label-templates', labelTemplateInput())),
   row('GET /labels.pdf',                         401,     200,     200,      200, (s) => s.get(`/api/labels.pdf?template=${s.templateId}&samples=${s.sample.code}`)),
+  row('GET /lab-settings',                       401,     200,     200,      200, (s) => s.get('/api/lab-settings')),
+  row('PATCH /lab-settings',                     401,     403,     403,      200, (s) => s.patch('/api/lab-settings', { minFeatureNm: 80 })),
+  row('GET /samples/:code/lens-design',          401,     200,     200,      200, async (s) => s.get(`/api/samples/${(await s.device()).code}/lens-design`)),
+  row('PUT /samples/:code/lens-design',          401,     403,     200,      200, async (s) => s.put(`/api/samples/${(await s.device()).code}/lens-design`, { wavelengthNm: 632.8, focalLengthUm: 1500, zoneCount: 40 })),
+  row('GET /samples/:code/lens-design/radii.csv', 401,    200,     200,      200, async (s) => s.get(`/api/samples/${(await s.device()).code}/lens-design/radii.csv`)),
+  row('GET /samples/:code/measurements',         401,     200,     200,      200, async (s) => s.get(`/api/samples/${(await s.device()).code}/measurements`)),
+  row('POST /samples/:code/measurements',        401,     403,     201,      201, async (s) => s.post(`/api/samples/${(await s.device()).code}/measurements`, { kind: 'focal_length_vs_gate_voltage', rows: [{ x: 0, y: 1001 }], measuredAt: '2026-12-05T10:00:00Z' })),
+  row('DELETE /samples/:code/measurements/:id',  401,     403,     204,      204, async (s) => s.delete(`/api/samples/${(await s.device()).code}/measurements/${(await s.device()).measurementId}`)),
+  row('GET /samples/:code/lineage-graph',        401,     200,     200,      200, async (s) => s.get(`/api/samples/${(await s.device()).code}/lineage-graph`)),
+  row('GET /samples/:code/audit',                401,     200,     200,      200, async (s) => s.get(`/api/samples/${(await s.device()).code}/audit`)),
+  row('GET /samples/:code/audit.pdf',            401,     200,     200,      200, async (s) => s.get(`/api/samples/${(await s.device()).code}/audit.pdf`)),
+  row('GET /samples/:code/audit.jsonld',         401,     200,     200,      200, async (s) => s.get(`/api/samples/${(await s.device()).code}/audit.jsonld`)),
+  row('POST /samples/:code/share-links',         401,     403,     403,      201, async (s) => s.post(`/api/samples/${(await s.device()).code}/share-links`, { expiresInDays: 30 })),
+  row('GET /samples/:code/share-links',          401,     403,     403,      200, async (s) => s.get(`/api/samples/${(await s.device()).code}/share-links`)),
+  row('POST /share-links/:id/revoke',            401,     403,     403,      200, async (s) => s.post(`/api/share-links/${(await s.device()).shareLinkId}/revoke`)),
+  row('GET /shared/:token',                      200,     200,     200,      200, async (s) => s.get(`/api/shared/${(await s.device()).shareToken}`)),
+  row('GET /shared/:token/audit.pdf',            200,     200,     200,      200, async (s) => s.get(`/api/shared/${(await s.device()).shareToken}/audit.pdf`)),
+  row('GET /shared/:token/audit.jsonld',         200,     200,     200,      200, async (s) => s.get(`/api/shared/${(await s.device()).shareToken}/audit.jsonld`)),
+  row('POST /samples/:code/evidence',            401,     403,     201,      201, (s) => s.post(`/api/samples/${s.sample.code}/evidence`).field('kind', 'micrograph').attach('file', ACCESS_PNG, 'scan.png')),
+  row('POST /steps/:id/evidence',                401,     403,     201,      201, (s) => s.post(`/api/steps/${s.stepId}/evidence`).field('kind', 'micrograph').attach('file', ACCESS_PNG, 'scan.png')),
+  row('GET /samples/:code/evidence',             401,     200,     200,      200, (s) => s.get(`/api/samples/${s.sample.code}/evidence`)),
+  row('GET /steps/:id/evidence',                 401,     200,     200,      200, (s) => s.get(`/api/steps/${s.stepId}/evidence`)),
+  row('GET /evidence/:id',                       401,     200,     200,      200, async (s) => s.get(`/api/evidence/${(await s.evidence()).chipMicrographId}`)),
+  row('PATCH /evidence/:id',                     401,     403,     200,      200, async (s) => s.patch(`/api/evidence/${(await s.evidence()).chipMicrographId}`, { version: 1, metadata: { exposureMs: 20 } })),
+  row('POST /evidence/:id/contrast',             401,     403,     200,      200, async (s) => s.post(`/api/evidence/${(await s.evidence()).chipMicrographId}/contrast`, { flakeRegion: { shape: 'box', x: 70, y: 50, width: 40, height: 30 }, substrateRegion: { shape: 'points', points: [{ x: 20, y: 20 }, { x: 180, y: 130 }], radiusPx: 8 } })),
+  row('POST /evidence/:id/candidates',           401,     403,     200,      200, async (s) => s.post(`/api/evidence/${(await s.evidence()).chipMicrographId}/candidates`)),
+  row('POST /evidence/:id/candidates/:index/flake', 401,   403,     201,      201, async (s) => s.post(`/api/evidence/${(await s.evidence()).chipMicrographId}/candidates/0/flake`)),
+  row('GET /files/:sha256',                      401,     200,     200,      200, async (s) => s.get(`/api/files/${(await s.evidence()).sha256}`)),
+  row('GET /files/:sha256/thumbnail',            401,     200,     200,      200, async (s) => s.get(`/api/files/${(await s.evidence()).sha256}/thumbnail`)),
+  row('GET /microscope-calibrations',            401,     200,     200,      200, (s) => s.get('/api/microscope-calibrations')),
+  row('POST /microscope-calibrations',           401,     403,     201,      201, (s) => s.post('/api/microscope-calibrations', { microscope: 'Upright microscope 2', objectiveMagnification: 20, umPerPixel: 0.32 })),
+  row('POST /microscope-calibrations/:id/retire', 401,    403,     200,      200, async (s) => s.post(`/api/microscope-calibrations/${(await s.evidence()).calibrationId}/retire`)),
 ];
+
+/** A small micrograph for the upload rows; uploads go to the test app's own file store. */
+const ACCESS_PNG = smallChipPng();
+/** The test app's file store, seen from outside the app (same folder). */
+let files: FileStore | undefined;
 
 async function issueToken(userId: number, purpose: 'invitation' | 'password_reset'): Promise<string> {
   return lab.knex.transaction((trx) => issueLinkToken({ trx, userId, purpose, ttlMs: 3_600_000 }));
+}
+
+/** A function that runs its body on the first call and hands every caller that first result. */
+function once<T>(make: () => Promise<T>): () => Promise<T> {
+  let made: Promise<T> | undefined;
+  return () => (made ??= make());
 }
 
 async function sceneFor(caller: Caller): Promise<Scene> {
@@ -138,6 +188,22 @@ async function sceneFor(caller: Caller): Promise<Scene> {
   const box = await insertBox(lab.knex);
   await putAway(lab.knex, other, crystal.code, box.code, 'B3');
   const template = await lab.knex('label_templates').where({ builtIn: true }).orderBy('id').first('id');
+  // Built only for the rows that use them: a device scene and a micrograph cost more than the rest together.
+  const device = once(async () => {
+    const scene = await insertDeviceScene(lab.knex, other);
+    return {
+      code: scene.device,
+      measurementId: scene.measurementId,
+      shareLinkId: scene.shareLinkId,
+      shareToken: scene.shareToken,
+    };
+  });
+  const evidence = once(async () => {
+    files ??= createFileStore(lab.config.storage);
+    const chipMicrograph = await insertChipMicrograph(lab.knex, files, other);
+    const calibrationId = await insertCalibration(lab.knex, other);
+    return { chipMicrographId: chipMicrograph.evidence.id, sha256: chipMicrograph.sha256, calibrationId };
+  });
   return {
     get: (path) => agent.get(path),
     post: (path, body) => {
@@ -157,6 +223,8 @@ async function sceneFor(caller: Caller): Promise<Scene> {
     box: { code: box.code },
     templateId: template.id,
     stepTemplateId: stepTemplate.id,
+    evidence,
+    device,
   };
 }
 

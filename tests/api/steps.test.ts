@@ -364,6 +364,15 @@ describe('POST /api/steps', () => {
         });
         return { body, inputs: [crystal.code], treated: [], outputs: 2 };
       },
+      flake_search: async (owner) => {
+        const chip = await insertSample(lab.knex, owner, { kind: 'chip', material: 'MoS2' });
+        const body = stepBody('flake_search', {
+          instrument: 'Upright microscope 2',
+          inputs: [{ code: chip.code }],
+          outputs: [{ kind: 'flake', name: 'Monolayer near the chip corner' }],
+        });
+        return { body, inputs: [chip.code], treated: [], outputs: 1 };
+      },
     };
 
     it.each(Object.keys(scenarios) as StepType[])('%s', async (type) => {

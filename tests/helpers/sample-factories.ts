@@ -54,6 +54,7 @@ export const STEP_PARAMETERS = {
   encapsulation: { material: 'hBN', method: 'dry pick-up' },
   metal_deposition: { metal: 'Cr/Au', thicknessNm: 65, method: 'electron-beam evaporation' },
   cleaving: { method: 'razor blade along the basal plane' },
+  flake_search: { microscope: 'Upright microscope 2', objectiveMagnification: 50 },
 } satisfies Record<StepType, Record<string, unknown>>;
 
 /** A crystal as a lab registers one that arrived from a grower or supplier. */

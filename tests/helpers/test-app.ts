@@ -44,8 +44,11 @@ export interface TestApp {
 export async function startTestApp(options: { config?: Partial<ServerConfig>; knex?: Knex } = {}): Promise<TestApp> {
   const mailDir = mkdtempSync(path.join(os.tmpdir(), 'flakeline-mail-'));
   const sink = await startMailSink({ host: '127.0.0.1', port: 0, dir: mailDir });
+  // Uploaded files go to a folder of this app's own, never the checkout's storage/.
+  const blobDir = mkdtempSync(path.join(os.tmpdir(), 'flakeline-blobs-'));
   const config = testConfig({
     mailSinkDir: mailDir,
+    storage: { backend: 'local', dir: blobDir },
     smtp: { host: '127.0.0.1', port: sink.port, from: 'Flakeline <flakeline@flakeline.test>' },
     ...options.config,
   });
@@ -64,6 +67,7 @@ export async function startTestApp(options: { config?: Partial<ServerConfig>; kn
       await sink.close();
       if (!options.knex) await knex.destroy();
       rmSync(mailDir, { recursive: true, force: true });
+      rmSync(blobDir, { recursive: true, force: true });
     },
   };
 }
