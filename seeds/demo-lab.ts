@@ -1,7 +1,9 @@
 import type { Knex } from 'knex';
 import { hashPassword } from '../server/auth/passwords';
 import type { UserModel } from '../server/models/user-model';
+import type { FileStore } from '../server/files/file-store';
 import { createPerson } from '../server/services/people';
+import { seedDemoEvidence } from './demo-evidence';
 import { seedDemoSamples } from './demo-samples';
 
 /**
@@ -17,7 +19,8 @@ export const DEMO_PEOPLE = [
   { email: 'ilkka.brandvold@demo.flakeline.test', displayName: 'Ilkka Brandvold', role: 'researcher', status: 'deactivated' },
 ] as const;
 
-export async function seedDemoLab(knex: Knex): Promise<void> {
+/** Loads the demo lab; its evidence files go to `files`, the store the server will read them from. */
+export async function seedDemoLab(knex: Knex, files: FileStore): Promise<void> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   await knex.transaction(async (trx) => {
     const people: UserModel[] = [];
@@ -35,6 +38,8 @@ export async function seedDemoLab(knex: Knex): Promise<void> {
     });
     await seedDemoSamples(trx, { manager, researcher });
   });
+  // After the records commit: evidence goes through the upload service, which opens its own transaction.
+  await seedDemoEvidence(knex, files, DEMO_PEOPLE[1].email);
 }
 
 /** True when the database has no people yet, i.e. this is the first start. */

@@ -5,6 +5,7 @@ import { prepareDatabase } from '../db/prepare-database';
 import { startMailSink } from '../mail/mail-sink';
 import { startServer } from '../main';
 import { isEmptyLab, seedDemoLab } from '../../seeds/demo-lab';
+import { createFileStore } from '../files/file-store';
 import { ensureClusterRunning, ensureDatabase } from './local-postgres';
 import { loadLocalSecrets } from './local-secrets';
 import { progress } from './progress';
@@ -44,7 +45,7 @@ async function main() {
   const knex = createKnex(config.databaseUrl, 2);
   if (await isEmptyLab(knex)) {
     progress('Loading the demo lab (first run)');
-    await seedDemoLab(knex);
+    await seedDemoLab(knex, createFileStore(config.storage));
   }
   await knex.destroy();
 

@@ -5,6 +5,7 @@ import path from 'node:path';
 import { configFromEnv, DATA_DIR, REPO_ROOT } from '../config';
 import { createKnex } from '../db/knex';
 import { prepareDatabase } from '../db/prepare-database';
+import { createFileStore, type FileStore } from '../files/file-store';
 import { startMailSink } from '../mail/mail-sink';
 import { startServer } from '../main';
 import { seedDemoLab } from '../../seeds/demo-lab';
@@ -30,12 +31,17 @@ function ensureChromium() {
   });
 }
 
-async function freshDatabase(name: string, secrets: ReturnType<typeof loadLocalSecrets>): Promise<DatabaseUrls> {
+/** A fresh, migrated database; with `demoFiles`, the demo lab is loaded and its files stored there. */
+async function freshDatabase(
+  name: string,
+  secrets: ReturnType<typeof loadLocalSecrets>,
+  demoFiles?: FileStore,
+): Promise<DatabaseUrls> {
   const urls = await ensureDatabase({ ...secrets, database: name, fresh: true });
   await prepareDatabase({ ownerUrl: urls.owner, appRole: APP_ROLE });
-  if (name === E2E_DATABASE) {
+  if (demoFiles) {
     const knex = createKnex(urls.app, 2);
-    await seedDemoLab(knex);
+    await seedDemoLab(knex, demoFiles);
     await knex.destroy();
   }
   return urls;
@@ -59,15 +65,16 @@ async function main() {
   ensureClusterRunning(secrets.superuserPassword);
   // One after the other: both (re)set the same roles, which PostgreSQL will not do concurrently.
   const apiUrls = await freshDatabase(API_DATABASE, secrets);
-  const e2eUrls = await freshDatabase(E2E_DATABASE, secrets);
+  // Uploaded files of the browser suite (the demo lab's too) go to a throwaway folder.
+  const e2eBlobDir = mkdtempSync(path.join(os.tmpdir(), 'flakeline-e2e-blobs-'));
+  const e2eUrls = await freshDatabase(E2E_DATABASE, secrets, createFileStore({ backend: 'local', dir: e2eBlobDir }));
   buildWebAppIfChanged();
   ensureChromium();
   const typesOk = typecheck();
 
   const mailDir = mkdtempSync(path.join(os.tmpdir(), 'flakeline-e2e-mail-'));
   const sink = await startMailSink({ host: '127.0.0.1', port: 0, dir: mailDir });
-  // Uploaded files of the browser suite go to a throwaway folder; the S3 path is tested against a local fake.
-  const e2eBlobDir = mkdtempSync(path.join(os.tmpdir(), 'flakeline-e2e-blobs-'));
+  // The S3 path is tested against a local fake.
   const fakeS3 = await startFakeS3();
   const server = await startServer(
     configFromEnv({

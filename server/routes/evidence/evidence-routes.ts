@@ -5,6 +5,7 @@ import {
   ContrastInput,
   EvidenceEnvelope,
   EvidenceItems,
+  type EvidenceKind,
   EvidenceList,
   EvidenceUpdateInput,
   EvidenceUploadFields,
@@ -17,6 +18,7 @@ import { evidenceUpload } from '../../http/evidence-upload';
 import { route, type AnyRouteSpec } from '../../http/route';
 import { EvidenceModel } from '../../models/evidence-models';
 import { StepModel } from '../../models/step-model';
+import type { UserModel } from '../../models/user-model';
 import { presentEvidence, presentEvidenceList } from '../../presenters/evidence-presenter';
 import { presentSample } from '../../presenters/sample-presenter';
 import { presentStep } from '../../presenters/step-presenter';
@@ -32,6 +34,24 @@ const UPLOAD_SUMMARY =
 
 export function evidenceRoutes(context: AppContext): AnyRouteSpec[] {
   const { knex, files } = context;
+  // Both upload routes differ only in what the evidence is attached to.
+  const attach = async (
+    actor: UserModel,
+    target: { sampleCode: string } | { stepId: number },
+    body: { kind: EvidenceKind; metadata: string },
+    file: Express.Multer.File | undefined,
+  ) => {
+    const evidence = await uploadEvidence({
+      knex,
+      files,
+      actor,
+      target,
+      kind: body.kind,
+      metadataJson: body.metadata,
+      file: file as Express.Multer.File,
+    });
+    return { evidence: await presentEvidence(knex, evidence) };
+  };
   return [
     route({
       method: 'post',
@@ -46,18 +66,7 @@ export function evidenceRoutes(context: AppContext): AnyRouteSpec[] {
       response: EvidenceEnvelope,
       successStatus: 201,
       errors: [404, 409, 413, 415],
-      handler: async ({ user, params, body, req }) => {
-        const evidence = await uploadEvidence({
-          knex,
-          files,
-          actor: user,
-          target: { sampleCode: params.code },
-          kind: body.kind,
-          metadataJson: body.metadata,
-          file: req.file as Express.Multer.File,
-        });
-        return { evidence: await presentEvidence(knex, evidence) };
-      },
+      handler: ({ user, params, body, req }) => attach(user, { sampleCode: params.code }, body, req.file),
     }),
     route({
       method: 'post',
@@ -72,18 +81,7 @@ export function evidenceRoutes(context: AppContext): AnyRouteSpec[] {
       response: EvidenceEnvelope,
       successStatus: 201,
       errors: [404, 409, 413, 415],
-      handler: async ({ user, params, body, req }) => {
-        const evidence = await uploadEvidence({
-          knex,
-          files,
-          actor: user,
-          target: { stepId: params.id },
-          kind: body.kind,
-          metadataJson: body.metadata,
-          file: req.file as Express.Multer.File,
-        });
-        return { evidence: await presentEvidence(knex, evidence) };
-      },
+      handler: ({ user, params, body, req }) => attach(user, { stepId: params.id }, body, req.file),
     }),
     route({
       method: 'get',
