@@ -1,3 +1,4 @@
+import { monitorEventLoopDelay } from 'node:perf_hooks';
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
@@ -108,6 +109,9 @@ async function main() {
     progress(`Ingesting it ${INGEST_RUNS} times through the upload service`);
     const runs: { stages: Map<string, number>; total: number; candidates: number }[] = [];
     let peakAfterFirst = 0;
+    // How long the server's event loop could not answer anyone else while images were ingested.
+    const stalls = monitorEventLoopDelay({ resolution: 10 });
+    stalls.enable();
     for (let run = 0; run < INGEST_RUNS; run += 1) {
       rmSync(path.join(scratch, 'blobs'), { recursive: true, force: true });
       const stages = new Map<string, number>();
@@ -133,6 +137,8 @@ async function main() {
       runs.push({ stages, total: performance.now() - started, candidates: ingested.analysis.candidates?.candidates.length ?? 0 });
       if (run === 0) peakAfterFirst = process.resourceUsage().maxRSS * 1024;
     }
+    stalls.disable();
+    const longestStallMs = stalls.max / 1e6;
     const peakRss = process.resourceUsage().maxRSS * 1024;
     const hashStarted = performance.now();
     sha256Of(data);
@@ -163,6 +169,7 @@ async function main() {
       `  SHA-256 of the file alone: ${ms(hashMs)} (inside "store", which also reads back any stored copy)`,
       `  candidates found: ${runs[0].candidates}`,
       `  peak resident memory: ${mb(peakAfterFirst)} after the first ingest, ${mb(peakRss)} after all (target under 500 MB; ${mb(rssAtStart)} before the first)`,
+      `  longest event-loop stall while ingesting: ${ms(longestStallMs)} (no other request is answered meanwhile)`,
       `  slowest stage: ${stageNames.reduce((a, b) => (median(runs.map((r) => r.stages.get(a) ?? 0)) >= median(runs.map((r) => r.stages.get(b) ?? 0)) ? a : b))}`,
       '',
       `Raman fit of ${RAMAN_POINTS} points (MoS2 rule): parse ${ms(parseMs)}, fit median ${ms(median(fitTimes))}, fastest ${ms(Math.min(...fitTimes))} over ${RAMAN_FITS} fits; layer call ${layers ?? 'none'}`,
