@@ -28,7 +28,8 @@ const THUMBNAIL_PT = 72;
 const COLOURS = { text: '#1b1f23', muted: '#5b636b', ready: '#1d6b3a', notReady: '#9b1c1c', rule: '#c9ced3' };
 
 const when = (value: string | null) => (value ? `${value.slice(0, 16).replace('T', ' ')} UTC` : 'not recorded');
-const layers = (value: number | null) => (value === null ? 'no layer call' : `${formatNumber(value)} layers`);
+const layers = (value: number | null) =>
+  value === null ? 'no layer call' : `${formatNumber(value)} ${value === 1 ? 'layer' : 'layers'}`;
 
 function describeRecord(record: AuditRecord): string {
   const parts = [
