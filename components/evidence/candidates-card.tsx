@@ -52,18 +52,22 @@ export function CandidatesCard({ evidence, canWrite, selected, onSelect }: Candi
       {analysis ? (
         analysis.candidates.length ? (
           <View style={styles.list} testID="candidates-list">
-            {analysis.candidates.map((candidate, index) => (
-              <CandidateRow
-                key={`${candidate.boxPx.x},${candidate.boxPx.y}`}
-                index={index}
-                candidate={candidate}
-                umPerPixel={umPerPixel}
-                selected={selected === index}
-                onSelect={() => onSelect(index)}
-                onMake={canWrite && onChip ? () => make(index) : null}
-                making={makeFlake.isPending && makeFlake.variables?.index === index}
-              />
-            ))}
+            {analysis.candidates.map((candidate, index) => {
+              const madeAs = evidence.candidateFlakes.find((made) => made.index === index)?.code ?? null;
+              return (
+                <CandidateRow
+                  key={`${candidate.boxPx.x},${candidate.boxPx.y}`}
+                  index={index}
+                  candidate={candidate}
+                  umPerPixel={umPerPixel}
+                  selected={selected === index}
+                  onSelect={() => onSelect(index)}
+                  onMake={canWrite && onChip && !madeAs ? () => make(index) : null}
+                  making={makeFlake.isPending && makeFlake.variables?.index === index}
+                  madeAs={madeAs}
+                />
+              );
+            })}
             {analysis.totalFound > analysis.candidates.length ? (
               <Text variant="caption" tone="muted">
                 {`${analysis.totalFound} regions were found; the ${analysis.candidates.length} largest are listed.`}
@@ -162,9 +166,11 @@ interface CandidateRowProps {
   onSelect: () => void;
   onMake: (() => void) | null;
   making: boolean;
+  /** The flake this candidate already became, if any. */
+  madeAs: string | null;
 }
 
-function CandidateRow({ index, candidate, umPerPixel, selected, onSelect, onMake, making }: CandidateRowProps) {
+function CandidateRow({ index, candidate, umPerPixel, selected, onSelect, onMake, making, madeAs }: CandidateRowProps) {
   const { colors } = useTheme();
   const { x, y } = candidate.centroidPx;
   const position = umPerPixel
@@ -201,6 +207,12 @@ function CandidateRow({ index, candidate, umPerPixel, selected, onSelect, onMake
           accessibilityLabel={`${selected ? 'Hide' : 'Show'} candidate ${index + 1} on the image`}
           testID={`candidate-${index}-show`}
         />
+        {madeAs ? (
+          <TextLink
+            href={{ pathname: '/samples/[code]', params: { code: madeAs } }}
+            testID={`candidate-${index}-flake`}
+          >{`Made as ${madeAs}`}</TextLink>
+        ) : null}
         {onMake ? (
           <Button
             title="Make a flake"

@@ -19,6 +19,38 @@ export function presentStoredFile(file: StoredFileModel): StoredFileRef {
   };
 }
 
+const sameBox = (a: { x: number; y: number; width: number; height: number }, b: unknown) => {
+  const box = b as { x?: number; y?: number; width?: number; height?: number } | undefined;
+  return !!box && a.x === box.x && a.y === box.y && a.width === box.width && a.height === box.height;
+};
+
+/**
+ * For each chip micrograph, its candidates already made into flakes: the flake's copy of the
+ * micrograph names the source and carries the candidate's box as its flake region (matched by box,
+ * since "look again" renumbers candidates).
+ */
+async function candidateFlakesOf(knex: Knex, items: EvidenceModel[]): Promise<Map<number, { index: number; code: string }[]>> {
+  const micrographs = items.filter((item) => item.kind === 'micrograph' && item.analysis.candidates?.candidates.length);
+  const result = new Map<number, { index: number; code: string }[]>();
+  if (micrographs.length === 0) return result;
+  const copies: { sourceId: number; flakeRegion: unknown; code: string }[] = await knex('evidence')
+    .join('samples', 'samples.id', 'evidence.sampleId')
+    .whereRaw(`(evidence.analysis -> 'fromCandidate' ->> 'evidenceId')::bigint = any(?)`, [micrographs.map((item) => item.id)])
+    .select(
+      knex.raw(`(evidence.analysis -> 'fromCandidate' ->> 'evidenceId')::bigint as "sourceId"`),
+      knex.raw(`evidence.metadata -> 'flakeRegion' as "flakeRegion"`),
+      'samples.code',
+    );
+  for (const item of micrographs) {
+    const made = (item.analysis.candidates?.candidates ?? []).flatMap((candidate, index) => {
+      const copy = copies.find((row) => Number(row.sourceId) === item.id && sameBox(candidate.boxPx, row.flakeRegion));
+      return copy ? [{ index, code: copy.code }] : [];
+    });
+    result.set(item.id, made);
+  }
+  return result;
+}
+
 /**
  * Evidence items as the API returns them. The file, author, sample and step of every item are
  * read in one query each, however many items there are.
@@ -41,6 +73,7 @@ export async function presentEvidenceList(knex: Knex, items: EvidenceModel[]): P
     ? await knex('users').whereIn('id', userIds).select('id', 'displayName')
     : [];
 
+  const candidateFlakes = await candidateFlakesOf(knex, items);
   const fileById = new Map(files.map((file) => [Number(file.id), file]));
   const sampleById = new Map(samples.map((sample) => [sample.id, sample]));
   const stepById = new Map(steps.map((step) => [step.id, step]));
@@ -63,6 +96,7 @@ export async function presentEvidenceList(knex: Knex, items: EvidenceModel[]): P
       analysis: item.analysis,
       // The columns mirror this estimate for queries; the analysis holds it whole.
       estimate: estimateOf(item.kind, item.analysis),
+      candidateFlakes: candidateFlakes.get(item.id) ?? [],
       createdBy: author ? { id: author.id, displayName: author.displayName } : null,
       createdAt: item.createdAt.toISOString(),
       updatedAt: item.updatedAt.toISOString(),

@@ -241,6 +241,8 @@ const evidenceOf = <K extends EvidenceKind, M extends z.ZodType>(kind: K, metada
     analysis: EvidenceAnalysis,
     /** The layer count this evidence supports, with its uncertainty and method; null when it gives none. */
     estimate: LayerEstimate.nullable(),
+    /** Candidates of this micrograph already made into flake records (index into its candidate list). */
+    candidateFlakes: z.array(z.object({ index: z.number().int(), code: z.string() })),
     createdBy: PersonRef.nullable(),
     createdAt: z.iso.datetime(),
     updatedAt: z.iso.datetime(),

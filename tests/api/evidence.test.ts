@@ -325,7 +325,7 @@ describe('candidates on a chip micrograph, and a candidate made into a flake', (
     expect(again.body.evidence.analysis.candidates.candidates).toEqual(edited.body.evidence.analysis.candidates.candidates);
   });
 
-  it('404 for a candidate that is not there; 201 makes a flake from the chip (not used up), with the micrograph attached; 409 on a second tap', async () => {
+  it('404 for a candidate that is not there; 201 makes a flake from the chip (not used up), with the micrograph attached; 409 on a second tap; the micrograph lists it as made', async () => {
     const session = await chipWithMicrograph(true);
     const candidates = session.evidence.analysis.candidates!.candidates;
     const index = candidates.findIndex((candidate) => candidate.layers === 1);
@@ -366,6 +366,10 @@ describe('candidates on a chip micrograph, and a candidate made into a flake', (
     const twice = await make(index);
     expect(twice.status).toBe(409);
     expect(twice.body.error.message).toContain(sample.code);
+    // The chip's micrograph now says which candidate became which flake, so the screen offers it no more.
+    const source = await session.agent.get(`/api/evidence/${session.evidence.id}`);
+    expect(source.body.evidence.candidateFlakes).toEqual([{ index, code: sample.code }]);
+    expect(session.evidence.candidateFlakes).toEqual([]);
 
     // Marking bare substrate on the flake's copy of the micrograph gives it its call.
     const measured = await session.agent
