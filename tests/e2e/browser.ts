@@ -82,3 +82,19 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   await page.screenshot({ path: file, fullPage: true });
   return file;
 }
+
+/**
+ * Scrolls an element into view after a change of viewport: the app re-lays itself out for the new
+ * width, so the element first found may be replaced mid-scroll. Tries again with a fresh lookup.
+ */
+export async function scrollIntoViewAfterResize(page: Page, testId: string): Promise<void> {
+  for (let attempt = 1; ; attempt += 1) {
+    try {
+      await page.getByTestId(testId).scrollIntoViewIfNeeded({ timeout: 5_000 });
+      return;
+    } catch (error) {
+      if (attempt >= 5) throw error;
+      await page.waitForTimeout(200);
+    }
+  }
+}

@@ -4,7 +4,7 @@ import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { PNG } from 'pngjs';
 import { rgbContrast } from '@/shared/optics/contrast';
-import { baseUrl, openBrowser, PHONE, screenshot, WIDE, type BrowserSession } from './browser';
+import { baseUrl, openBrowser, PHONE, screenshot, scrollIntoViewAfterResize, WIDE, type BrowserSession } from './browser';
 
 const RESEARCHER = 'researcher@demo.flakeline.test';
 const DEMO_PASSWORD = 'flakeline-demo';
@@ -218,7 +218,7 @@ describe('thickness evidence at phone size', () => {
       await screenshot(page, 'evidence-phone-micrograph');
 
       await page.setViewportSize(WIDE);
-      await page.getByTestId('micrograph-marker').scrollIntoViewIfNeeded();
+      await scrollIntoViewAfterResize(page, 'micrograph-marker');
       await screenshot(page, 'evidence-wide-micrograph');
       await page.setViewportSize(PHONE);
 
